@@ -1,0 +1,35 @@
+// @ts-check
+import { defineConfig, envField } from 'astro/config';
+import node from '@astrojs/node';
+import react from '@astrojs/react';
+import tailwindcss from '@tailwindcss/vite';
+
+// the public host (behind a proxy) must be trusted too, or same-origin form posts are refused
+const publicHost = process.env.PUBLIC_BASE_URL ? new URL(process.env.PUBLIC_BASE_URL).hostname : null;
+const allowedDomains = [{ hostname: '127.0.0.1' }, { hostname: 'localhost' }];
+if (publicHost && !allowedDomains.some((d) => d.hostname === publicHost)) allowedDomains.push({ hostname: publicHost });
+
+export default defineConfig({
+  output: 'server',
+  adapter: node({ mode: 'standalone' }),
+  integrations: [react()],
+  server: { host: '127.0.0.1', port: 4321 },
+  security: {
+    checkOrigin: true,
+    allowedDomains,
+  },
+  env: {
+    schema: {
+      DATABASE_URL: envField.string({ context: 'server', access: 'secret' }),
+      SMTP_URL: envField.string({ context: 'server', access: 'secret', default: 'smtp://127.0.0.1:2525' }),
+      MAIL_FROM: envField.string({ context: 'server', access: 'public', default: 'Wallpulse <no-reply@wallpulse.local>' }),
+      PUBLIC_BASE_URL: envField.string({ context: 'server', access: 'public', default: 'http://127.0.0.1:4321' }),
+    },
+    validateSecrets: false,
+  },
+  vite: {
+    plugins: [tailwindcss()],
+    worker: { format: 'es' },
+  },
+  devToolbar: { enabled: false },
+});

@@ -1,0 +1,9 @@
+/** the screens in the top bar; a screen is listed only once its page works */
+export interface NavItem {
+  href: string;
+  label: string;
+  /** shown only to a signed-in member */
+  signedIn?: boolean;
+}
+
+export const NAV_ITEMS: NavItem[] = [];

@@ -1,0 +1,41 @@
+import { createHash } from 'node:crypto';
+import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+import { log } from './util';
+
+const INPUTS = ['src', 'public', 'astro.config.mjs', 'tsconfig.json', 'package-lock.json'];
+
+function hashTree(root: string): string {
+  const h = createHash('sha256');
+  const walk = (rel: string) => {
+    const abs = path.join(root, rel);
+    if (!existsSync(abs)) return;
+    const st = statSync(abs);
+    if (st.isDirectory()) {
+      for (const name of readdirSync(abs).sort()) walk(path.join(rel, name));
+    } else {
+      h.update(rel).update('\0').update(readFileSync(abs)).update('\0');
+    }
+  };
+  for (const input of INPUTS) walk(input);
+  return h.digest('hex');
+}
+
+/** build the app unless dist/ was built from exactly these sources */
+export function ensureBuilt(root: string, force = false): void {
+  const stamp = path.join(root, 'dist', '.wallpulse-build');
+  const digest = hashTree(root);
+  if (!force && existsSync(stamp) && readFileSync(stamp, 'utf8') === digest && existsSync(path.join(root, 'dist/server/entry.mjs'))) {
+    log('the build in dist/ is up to date');
+    return;
+  }
+  log('building the app (astro build)');
+  const r = spawnSync(process.execPath, [path.join(root, 'node_modules/astro/astro.js'), 'build'], {
+    cwd: root,
+    stdio: 'inherit',
+    env: { ...process.env, ASTRO_TELEMETRY_DISABLED: '1' },
+  });
+  if (r.status !== 0) throw new Error('astro build failed');
+  writeFileSync(stamp, digest);
+}
