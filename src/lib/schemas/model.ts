@@ -2,6 +2,7 @@
 // messages read `path: message` through formatIssues(), e.g. `layers[1].thickness: must be greater than 0 m`.
 import { z } from 'zod';
 import { countCells } from '../thermal/mesh.ts';
+import type { Model as EngineModel } from '../thermal/types.ts';
 
 /** ten years of 365.25 days, s */
 export const MAX_DURATION = 10 * 365.25 * 86400; // 315,576,000 s
@@ -230,3 +231,6 @@ export function parseModel(input: unknown): { ok: true; model: ModelData } | { o
   const r = modelSchema.safeParse(input);
   return r.success ? { ok: true, model: r.data } : { ok: false, issues: formatIssues(r.error) };
 }
+
+// compile-time proof that a validated model is what the engine takes
+export const toEngineModel = (model: ModelData): EngineModel => model;

@@ -139,6 +139,21 @@ describe('simulate: semi-infinite solid', () => {
     expect(bounded(ringing)).toBeGreaterThan(0.02); // the undamped scheme does ring: the check can fail
     expect(bounded(damped)).toBeLessThan(1e-4);
   });
+  it('restarts with half-steps after a jump of a series signal later in the run', () => {
+    // same remedy (rannacher 1984) applied at every jump: a series step of 1 K or more within one time step
+    const jumpModel: Model = {
+      ...stepModel(3600)[0],
+      outside: { surfaceResistance: 0, air: { kind: 'series', step: 3600, values: [0, 0, 0, 0, 5] } }, // a 5 K step within one time step
+      initial: { kind: 'steady' },
+    };
+    const rising = (r: ReturnType<typeof simulate>) => {
+      let worst = 0;
+      for (let k = 5; k < r.profiles.length; k++) for (let i = 1; i < 20; i++) worst = Math.max(worst, r.profiles[k - 1][i] - r.profiles[k][i]);
+      return worst;
+    };
+    expect(rising(simulate(jumpModel, { startupHalfSteps: 0 }))).toBeGreaterThan(0.1);
+    expect(rising(simulate(jumpModel))).toBeLessThan(5e-6);
+  });
 });
 
 describe('simulate: periodic steady state', () => {
