@@ -1,0 +1,156 @@
+import { describe, it, expect } from 'vitest';
+import { firstHarmonic, splitIntegral, figures, dayClock, summaryOf, PERIODIC_TOLERANCE } from '../../../src/lib/workbench/figures';
+import { dewPoint, defaultExposure, type WorkbenchDocument } from '../../../src/lib/schemas/workbench';
+import { runDocument } from '../../../src/lib/workbench/runDocument';
+
+const DAY = 86400;
+const sampled = (n: number, step: number, f: (t: number) => number) => {
+  const time = Array.from({ length: n }, (_, k) => k * step);
+  return { time, values: time.map(f) };
+};
+
+describe('firstHarmonic', () => {
+  it('recovers the mean, amplitude and peak time of a pure sine sampled every 15 minutes (exact for a sampled sine: discrete orthogonality)', () => {
+    const { time, values } = sampled(3 * 96 + 1, 900, (t) => 17 + 6.5 * Math.cos((2 * Math.PI * (t - 15.25 * 3600)) / DAY));
+    const h = firstHarmonic(time, values, DAY, 2 * DAY);
+    expect(h.mean).toBeCloseTo(17, 10);
+    expect(h.amplitude).toBeCloseTo(6.5, 10);
+    expect(h.peakTime).toBeCloseTo(15.25 * 3600, 4);
+  });
+
+  it('ignores the second harmonic and the mean when fitting the first (orthogonality of the fourier basis)', () => {
+    const { time, values } = sampled(97, 900, (t) => 3 + 2 * Math.cos((2 * Math.PI * (t - 3600)) / DAY) + 4 * Math.sin((4 * Math.PI * t) / DAY));
+    const h = firstHarmonic(time, values, DAY, 0);
+    expect(h.amplitude).toBeCloseTo(2, 10);
+    expect(h.peakTime).toBeCloseTo(3600, 4);
+  });
+
+  it('gives NaN when fewer than four samples fall in the period', () => {
+    expect(Number.isNaN(firstHarmonic([0, 1], [1, 2], DAY, 0).amplitude)).toBe(true);
+  });
+});
+
+describe('splitIntegral', () => {
+  it('integrates the positive and negative halves of a sine to ±A·P/π (analytic ∫ of |sin| over a half period)', () => {
+    const { time, values } = sampled(24 * 60 + 1, 60, (t) => 10 * Math.sin((2 * Math.PI * t) / DAY));
+    const { positive, negative } = splitIntegral(time, values, 0, DAY);
+    expect(positive / ((10 * DAY) / Math.PI)).toBeCloseTo(1, 5);
+    expect(negative / ((-10 * DAY) / Math.PI)).toBeCloseTo(1, 5);
+  });
+
+  it('splits a linear ramp through zero at the crossing (triangle areas)', () => {
+    const { positive, negative } = splitIntegral([0, 10], [-2, 8], 0, 10);
+    expect(positive).toBeCloseTo(0.5 * 8 * 8, 12);
+    expect(negative).toBeCloseTo(-0.5 * 2 * 2, 12);
+  });
+});
+
+describe('dewPoint (Magnus formula, Alduchov & Eskridge coefficients)', () => {
+  it('gives 9.3 °C for air at 20 °C and 50 % relative humidity (psychrometric tables, from memory)', () => {
+    expect(dewPoint(20, 50)).toBeCloseTo(9.3, 1);
+  });
+  it('equals the air temperature at 100 % relative humidity (definition of the dew point)', () => {
+    expect(dewPoint(12.5, 100)).toBeCloseTo(12.5, 10);
+  });
+});
+
+describe('dayClock', () => {
+  it('reads seconds from midnight of the first reported day as day and hh:mm', () => {
+    expect(dayClock(0)).toBe('day 1, 00:00');
+    expect(dayClock(DAY + 15 * 3600)).toBe('day 2, 15:00');
+    expect(dayClock(Number.NaN)).toBe('–');
+  });
+});
+
+// a heavy single-layer wall (our own example: 200 mm of dense concrete, typical values from memory)
+const concreteWall = (days: number, warmupDays: number): WorkbenchDocument => ({
+  version: 1,
+  layers: [
+    { id: 'a', name: 'Dense concrete', materialRef: null, materialClass: 'concrete', thickness: 0.2, conductivity: 1.35, density: 2000, specificHeat: 1000, vapourResistanceFactor: null, source: 'typical value, from memory', note: '' },
+    { id: 'b', name: 'Mineral wool', materialRef: null, materialClass: 'insulation', thickness: 0.1, conductivity: 0.035, density: 50, specificHeat: 1030, vapourResistanceFactor: null, source: 'typical value, from memory', note: '' },
+  ],
+  exposure: { ...defaultExposure(), days, warmupDays },
+});
+
+describe('figures of a simulated run', () => {
+  it('matches the analytic ISO 13786 decrement factor within 1 % and time lag within 5 minutes after a warm-up (engine contract accuracy)', () => {
+    const out = runDocument(concreteWall(3, 6));
+    if (out.kind !== 'done') throw new Error(JSON.stringify(out));
+    const f = out.figures;
+    expect(f.decrementFactor.simulated / f.decrementFactor.analytic).toBeGreaterThan(0.99);
+    expect(f.decrementFactor.simulated / f.decrementFactor.analytic).toBeLessThan(1.01);
+    const lagDiff = Math.abs(f.timeLag.simulated - f.timeLag.analytic);
+    expect(Math.min(lagDiff, DAY - lagDiff)).toBeLessThan(300);
+    expect(f.periodic.checked).toBe(true);
+    expect(f.periodic.reached).toBe(true);
+    expect(f.energyBalanceError).toBeLessThan(1e-6);
+  });
+
+  it('balances the day: heat gained minus heat lost equals the mean inside flux times a day (U·(mean outside − inside), steady part of a periodic state)', () => {
+    const out = runDocument(concreteWall(2, 8));
+    if (out.kind !== 'done') throw new Error('run failed');
+    const f = out.figures;
+    const e = defaultExposure();
+    const u = out.analytic.steady.uValue;
+    const meanOut = e.outdoor.mode === 'sine' ? e.outdoor.mean : NaN;
+    const inside = e.indoor.mode === 'constant' ? e.indoor.value : NaN;
+    const expected = (u * (meanOut - inside) * DAY) / 3600; // Wh/m²
+    expect(f.heatGained - f.heatLost).toBeCloseTo(expected, 1);
+  });
+
+  it('warns that the periodic state is not reached when a heavy wall starts from a steady profile without warm-up', () => {
+    const out = runDocument(concreteWall(2, 0));
+    if (out.kind !== 'done') throw new Error('run failed');
+    expect(out.figures.periodic.checked).toBe(true);
+    expect(out.figures.periodic.maxDifference).toBeGreaterThan(PERIODIC_TOLERANCE);
+    expect(out.figures.periodic.reached).toBe(false);
+    expect(out.figures.periodic.criterion).toMatch(/0.05 K/);
+    expect(summaryOf(out.figures).periodicState).toBe('not reached');
+  });
+
+  it('finds the lowest interface temperature and compares it with the Magnus dew point of the indoor air', () => {
+    const doc = concreteWall(1, 2);
+    doc.exposure.outdoor = { mode: 'sine', mean: -5, swing: 6, peakHour: 14 };
+    doc.exposure.indoor = { mode: 'constant', value: 20 };
+    doc.exposure.indoorRelativeHumidity = 60;
+    const out = runDocument(doc);
+    if (out.kind !== 'done') throw new Error('run failed');
+    const f = out.figures;
+    expect(f.lowestInterface?.name).toBe('Dense concrete / Mineral wool');
+    expect(f.dewPoint?.value).toBeCloseTo(dewPoint(20, 60), 10);
+    // insulation inside: the concrete behind it is near the outdoor temperature, far below the dew point
+    expect(f.lowestInterface!.value).toBeLessThan(f.dewPoint!.value);
+    expect(f.belowDewPoint).toBe(true);
+  });
+
+  it('reports no simulated decrement factor when the outdoor air does not swing', () => {
+    const doc = concreteWall(1, 1);
+    doc.exposure.outdoor = { mode: 'sine', mean: 10, swing: 0, peakHour: 14 };
+    const out = runDocument(doc);
+    if (out.kind !== 'done') throw new Error('run failed');
+    expect(Number.isNaN(out.figures.decrementFactor.simulated)).toBe(true);
+    expect(out.figures.notes.join(' ')).toMatch(/does not swing/);
+  });
+});
+
+describe('figures()', () => {
+  it('fits a synthetic sine pair: the flux amplitude over the outdoor amplitude over U is the decrement factor, the phase difference is the lag', () => {
+    const n = 2 * 96 + 1;
+    const time = Array.from({ length: n }, (_, k) => k * 900);
+    const air = time.map((t) => 20 + 5 * Math.cos((2 * Math.PI * (t - 14 * 3600)) / DAY));
+    const flux = time.map((t) => 1 + 0.8 * Math.cos((2 * Math.PI * (t - 22 * 3600)) / DAY));
+    const flat = time.map(() => 21);
+    const f = figures({
+      time, reportStart: 0, period: DAY, outsideAir: air, solAir: air, insideAir: flat, insideSurface: flat, insideFlux: flux,
+      interfaces: [], interfaceNames: [], uValue: 0.4,
+      analytic: { period: DAY, periodicTransmittance: 0.16, decrementFactor: 0.4, timeLag: 8 * 3600, admittanceInside: 0, arealHeatCapacityInside: 0 },
+      energyBalanceError: 0, cells: 10, timeStep: 300, maxCellSize: 0.005, indoorRelativeHumidity: null, outdoorPeriodic: true, indoorConstant: true,
+    });
+    expect(f.periodicTransmittance.simulated).toBeCloseTo(0.16, 10);
+    expect(f.decrementFactor.simulated).toBeCloseTo(0.4, 10);
+    expect(f.timeLag.simulated).toBeCloseTo(8 * 3600, 3);
+    expect(f.peakInsideFlux.value).toBeCloseTo(1.8, 10);
+    expect(f.periodic.reached).toBe(true);
+    expect(f.dewPoint).toBeNull();
+  });
+});
