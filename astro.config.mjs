@@ -11,6 +11,8 @@ if (publicHost && !allowedDomains.some((d) => d.hostname === publicHost)) allowe
 
 export default defineConfig({
   output: 'server',
+  // the test command builds into its own throwaway folder so parallel runs never share a build
+  outDir: process.env.WALLPULSE_OUT_DIR ?? './dist',
   adapter: node({ mode: 'standalone' }),
   integrations: [react()],
   server: { host: '127.0.0.1', port: 4321 },

@@ -1,6 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { sleep, waitForExit } from './util';
+import { outDir } from './build';
 
 export interface AppProcess {
   child: ChildProcess;
@@ -10,7 +11,7 @@ export interface AppProcess {
 
 /** run the built standalone server and wait until /api/health says the database answers */
 export async function startApp(root: string, env: Record<string, string>, host: string, port: number): Promise<AppProcess> {
-  const child = spawn(process.execPath, [path.join(root, 'dist/server/entry.mjs')], {
+  const child = spawn(process.execPath, [path.join(outDir(root), 'server/entry.mjs')], {
     cwd: root,
     stdio: ['ignore', 'inherit', 'inherit'],
     env: { ...process.env, ...env, HOST: host, PORT: String(port), ASTRO_TELEMETRY_DISABLED: '1' },

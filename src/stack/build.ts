@@ -22,12 +22,18 @@ function hashTree(root: string): string {
   return h.digest('hex');
 }
 
-/** build the app unless dist/ was built from exactly these sources */
-export function ensureBuilt(root: string, force = false): void {
-  const stamp = path.join(root, 'dist', '.wallpulse-build');
+/** where the build goes: dist/, or WALLPULSE_OUT_DIR (the test command's own folder) */
+export function outDir(root: string): string {
+  return path.resolve(root, process.env.WALLPULSE_OUT_DIR ?? 'dist');
+}
+
+/** build the app unless the output folder was built from exactly these sources */
+export function ensureBuilt(root: string): void {
+  const out = outDir(root);
+  const stamp = path.join(out, '.wallpulse-build');
   const digest = hashTree(root);
-  if (!force && existsSync(stamp) && readFileSync(stamp, 'utf8') === digest && existsSync(path.join(root, 'dist/server/entry.mjs'))) {
-    log('the build in dist/ is up to date');
+  if (existsSync(stamp) && readFileSync(stamp, 'utf8') === digest && existsSync(path.join(out, 'server/entry.mjs'))) {
+    log(`the build in ${path.relative(root, out)}/ is up to date`);
     return;
   }
   log('building the app (astro build)');

@@ -1,6 +1,5 @@
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { mkdtempSync, mkdirSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { testEnv } from './env';
 import { sessionFor, SESSION_COOKIE } from './db';
@@ -18,7 +17,7 @@ export function baseUrl(): string {
  * recorded, so tests can prove that nothing leaves 127.0.0.1.
  */
 export async function launch(): Promise<{ browser: Browser; close(): Promise<void> }> {
-  const profile = mkdtempSync(path.join(tmpdir(), 'wallpulse-chromium-'));
+  // playwright gives every launch a fresh temporary profile of its own
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
@@ -30,15 +29,11 @@ export async function launch(): Promise<{ browser: Browser; close(): Promise<voi
       '--disable-component-update',
       '--disable-sync',
       '--no-first-run',
-      `--user-data-dir=${profile}`,
     ],
   });
   return {
     browser,
-    async close() {
-      await browser.close();
-      rmSync(profile, { recursive: true, force: true });
-    },
+    close: () => browser.close(),
   };
 }
 
