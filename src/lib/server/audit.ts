@@ -1,0 +1,48 @@
+import { db } from './db';
+import { auditLog } from './db/schema';
+
+/** the actions the audit log records */
+export type AuditAction =
+  | 'sign_in'
+  | 'sign_in_failed'
+  | 'sign_out'
+  | 'sign_up'
+  | 'password_reset'
+  | 'team_created'
+  | 'role_changed'
+  | 'member_removed'
+  | 'member_left'
+  | 'invitation_sent'
+  | 'invitation_revoked'
+  | 'invitation_accepted'
+  | 'share_created'
+  | 'share_opened'
+  | 'share_revoked'
+  | 'revision_issued';
+
+export interface AuditEntry {
+  action: AuditAction;
+  teamId?: number | null;
+  actorId?: string | null;
+  target?: string;
+  detail?: Record<string, unknown> | null;
+  ip?: string;
+  success?: boolean;
+}
+
+/** one row in the audit log; a failure to write it never breaks the request it describes */
+export async function audit(entry: AuditEntry): Promise<void> {
+  try {
+    await db.insert(auditLog).values({
+      action: entry.action,
+      teamId: entry.teamId ?? null,
+      actorId: entry.actorId ?? null,
+      target: (entry.target ?? '').slice(0, 255),
+      detail: entry.detail ?? null,
+      ip: (entry.ip ?? '').slice(0, 64),
+      success: entry.success ?? true,
+    });
+  } catch (err) {
+    console.error('audit log write failed', entry.action, err);
+  }
+}

@@ -1,0 +1,26 @@
+import { asc, desc, type SQL, type AnyColumn } from 'drizzle-orm';
+import type { ListQuery } from '../../schemas/api';
+
+/** one page of a list, as every list endpoint answers */
+export interface Page<T> {
+  items: T[];
+  page: number;
+  pageSize: number;
+  total: number;
+}
+
+/** ORDER BY for a "key" or "-key" sort, falling back to the first column */
+export function orderFor(sort: string, columns: Record<string, AnyColumn | SQL>): SQL[] {
+  const descending = sort.startsWith('-');
+  const column = columns[sort.replace(/^-/, '')] ?? Object.values(columns)[0];
+  return [descending ? desc(column) : asc(column)];
+}
+
+export function offsetOf(q: ListQuery): number {
+  return (q.page - 1) * q.pageSize;
+}
+
+/** a LIKE pattern for the filter text, with % and _ taken literally */
+export function likePattern(q: string): string {
+  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}

@@ -1,0 +1,12 @@
+import type { APIRoute } from 'astro';
+import { apiError } from '../../../lib/server/http';
+import { sendVerification } from '../../../lib/server/auth/accounts';
+import { json } from '../../../lib/server/services/respond';
+
+export const POST: APIRoute = async ({ locals }) => {
+  const user = locals.user;
+  if (!user) return apiError(401, 'unauthenticated', 'Sign in first.');
+  if (user.emailVerified) return apiError(409, 'already_verified', 'Your address is confirmed already.');
+  await sendVerification(user);
+  return json({ sent: true }, 202);
+};

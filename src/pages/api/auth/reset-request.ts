@@ -1,0 +1,13 @@
+import type { APIRoute } from 'astro';
+import { readJson } from '../../../lib/server/http';
+import { resetRequestBody } from '../../../lib/schemas/api';
+import { requestPasswordReset } from '../../../lib/server/auth/accounts';
+import { json } from '../../../lib/server/services/respond';
+
+/** mail a reset link when the address has an account; the answer is the same either way */
+export const POST: APIRoute = async ({ request }) => {
+  const body = await readJson(request, resetRequestBody);
+  if ('response' in body) return body.response;
+  await requestPasswordReset(body.data.email);
+  return json({ sent: true, message: 'If an account uses this address, a reset link is on its way. It lasts 1 hour.' }, 202);
+};

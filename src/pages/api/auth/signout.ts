@@ -1,0 +1,10 @@
+import type { APIRoute } from 'astro';
+import { endSession } from '../../../lib/server/auth/session';
+import { audit } from '../../../lib/server/audit';
+import { clientIp } from '../../../lib/server/services/respond';
+
+export const POST: APIRoute = async (ctx) => {
+  if (ctx.locals.user) await audit({ action: 'sign_out', actorId: ctx.locals.user.id, ip: clientIp(ctx) });
+  await endSession(ctx.cookies, ctx.locals.session?.id);
+  return new Response(null, { status: 204 });
+};
