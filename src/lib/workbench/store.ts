@@ -54,6 +54,9 @@ export interface WorkbenchState {
   editingKey: string | null;
   /** the uploaded outdoor series when the exposure uses one */
   upload: UploadedSeries | null;
+  /** the layer under the pointer or focus, in the cards or the drawing (view state, not undoable) */
+  highlightedId: string | null;
+  setHighlighted(id: string | null): void;
 
   load(input: { assembly: AssemblyInfo | null; base: RevisionInfo | null; doc: WorkbenchDocument; saved?: WorkbenchDocument }): void;
   markSaved(base: RevisionInfo): void;
@@ -130,6 +133,10 @@ export const useWorkbench = create<WorkbenchState>()((set, get) => {
     future: [],
     editingKey: null,
     upload: null,
+    highlightedId: null,
+    setHighlighted(id) {
+      if (get().highlightedId !== id) set({ highlightedId: id });
+    },
 
     load({ assembly, base, doc, saved }) {
       const savedDoc = saved ?? doc;

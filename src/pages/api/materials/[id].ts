@@ -1,11 +1,16 @@
 import type { APIRoute } from 'astro';
+import { z } from 'zod';
 import { apiError, readJson } from '../../../lib/server/http';
 import { authorize, can } from '../../../lib/server/access';
 import { deleteMaterial, getMaterial, nameTaken, toLibraryMaterial, updateMaterial } from '../../../lib/server/materials';
 import { materialFieldsSchema } from '../../../lib/materials/schema';
 
 const noStore = { 'cache-control': 'no-store' };
-const patchBody = materialFieldsSchema.partial().strict({ error: 'holds a field that cannot be changed' });
+// no defaults here: a field left out stays as it is
+const patchBody = materialFieldsSchema
+  .extend({ notes: z.string().trim().max(2000, { error: 'must be at most 2000 characters' }) })
+  .partial()
+  .strict();
 
 function idOf(raw: string | undefined): number | null {
   return raw && /^\d{1,10}$/.test(raw) && Number(raw) > 0 ? Number(raw) : null;
