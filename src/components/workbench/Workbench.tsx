@@ -6,7 +6,6 @@ import { diffBuildUps, type BuildUpDiff } from '../../lib/workbench/diff';
 import BuildUpPane from './BuildUpPane';
 import SaveDialog from './SaveDialog';
 import StaleDialog from './StaleDialog';
-import CautionNote from '../CautionNote';
 
 interface HeadJson {
   id: number;
@@ -330,8 +329,6 @@ export default function Workbench({ assemblyId }: { assemblyId: number }) {
           // panes: exposure and response mount here
         }
       </div>
-
-      <CautionNote compact />
 
       {saveOpen ? (
         <SaveDialog
