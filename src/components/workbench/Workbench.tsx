@@ -4,6 +4,8 @@ import { workbenchDocumentSchema, type WorkbenchDocument } from '../../lib/schem
 import { clearDraft, readDraft, writeDraft, type StoredDraft } from '../../lib/workbench/draftStorage';
 import { diffBuildUps, type BuildUpDiff } from '../../lib/workbench/diff';
 import BuildUpPane from './BuildUpPane';
+import ExposurePane from './ExposurePane';
+import ResponsePane from './ResponsePane';
 import SaveDialog from './SaveDialog';
 import StaleDialog from './StaleDialog';
 
@@ -328,6 +330,14 @@ export default function Workbench({ assemblyId }: { assemblyId: number }) {
         {
           // panes: exposure and response mount here
         }
+        <div className="grid gap-4 xl:grid-cols-[minmax(0,24rem)_minmax(0,1fr)] items-start">
+          <div className="rounded-md border border-line bg-paper p-3">
+            <ExposurePane />
+          </div>
+          <div className="rounded-md border border-line bg-paper p-3 min-w-0">
+            <ResponsePane />
+          </div>
+        </div>
       </div>
 
       {saveOpen ? (
