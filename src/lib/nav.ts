@@ -6,4 +6,7 @@ export interface NavItem {
   signedIn?: boolean;
 }
 
-export const NAV_ITEMS: NavItem[] = [];
+export const NAV_ITEMS: NavItem[] = [
+  { href: '/jobs', label: 'Jobs', signedIn: true },
+  { href: '/team', label: 'Team', signedIn: true },
+];
