@@ -8,5 +8,6 @@ export interface NavItem {
 
 export const NAV_ITEMS: NavItem[] = [
   { href: '/jobs', label: 'Jobs', signedIn: true },
+  { href: '/library', label: 'Library', signedIn: true },
   { href: '/team', label: 'Team', signedIn: true },
 ];
