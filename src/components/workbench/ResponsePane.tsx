@@ -10,7 +10,6 @@ import { seriesCsv } from '../../lib/workbench/exportCsv';
 import type { MaterialClass, UploadedSeries, WorkbenchDocument } from '../../lib/schemas/workbench';
 import { drawProfile, profileRange, profileStyle, type ProfileStyle } from './profileDraw';
 import FiguresTable from './FiguresTable';
-import CautionNote from '../CautionNote';
 
 /** runs of up to this many days (warm-up included) re-run by themselves after an edit */
 export const AUTO_RUN_DAYS = 7;
@@ -257,7 +256,6 @@ export default function ResponsePane() {
               Series as CSV
             </button>
           </div>
-          <CautionNote compact />
         </>
       ) : null}
     </section>
