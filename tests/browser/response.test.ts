@@ -51,7 +51,9 @@ describe('Response pane', () => {
     await pane.getByTestId('run-progress').waitFor({ state: 'detached' });
     await page.waitForTimeout(200);
     expect(await longTasks(page)).toEqual([]);
-    await expect(pane.getByTestId('run-state').textContent()).resolves.toMatch(/Unsaved run/);
+    // the run is of the saved revision: it can be kept with it (the runs API of the revision)
+    await pane.getByRole('button', { name: /Keep this run with revision \d+/ }).click();
+    await expect(pane.getByTestId('run-saved').textContent()).resolves.toMatch(/Kept with revision \d+ \(run \d+\)/);
     const decrement = await pane.locator('[data-figure="decrementFactor"] [data-cell="simulated"]').textContent();
     const analytic = await pane.locator('[data-figure="decrementFactor"] [data-cell="analytic"]').textContent();
     // after four warm-up days the fitted decrement factor agrees with ISO 13786 to the shown decimals, give or take one
@@ -83,6 +85,12 @@ describe('Response pane', () => {
     expect(Number(row!['inside surface (°C)']).toFixed(2)).toBe(shownSurface);
 
     await screenshot(page, 'response-pane');
+
+    // an edit of the exposure re-runs by itself (a 7-day run); the new run is not of the saved revision
+    const before15 = await pane.locator('[data-figure="peakInsideFlux"] [data-cell="simulated"]').textContent();
+    await page.getByTestId('exposure-pane').getByLabel('Daily mean').fill('30');
+    await expect.poll(() => pane.locator('[data-figure="peakInsideFlux"] [data-cell="simulated"]').textContent()).not.toBe(before15);
+    await expect(pane.getByTestId('run-state').textContent()).resolves.toMatch(/Unsaved run/);
     expect(outsideRequests(requests)).toEqual([]);
     expect(errors).toEqual([]);
     await context.close();

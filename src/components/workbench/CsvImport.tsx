@@ -37,6 +37,7 @@ function Preview({ air, irradiance }: { air: number[]; irradiance?: number[] }) 
 export default function CsvImport({ teamId, onClose, onSaved }: { teamId: number | null; onClose: () => void; onSaved: (u: UploadSummary) => void }) {
   const [fileName, setFileName] = useState('');
   const [name, setName] = useState('');
+  const [nameTouched, setNameTouched] = useState(false);
   const [csv, setCsv] = useState<ParsedCsv | null>(null);
   const [mapping, setMapping] = useState<CsvMapping | null>(null);
   const [readError, setReadError] = useState<string | null>(null);
@@ -63,7 +64,7 @@ export default function CsvImport({ teamId, onClose, onSaved }: { teamId: number
       setCsv(parsed);
       setMapping(guessMapping(parsed));
       setFileName(file.name);
-      if (!name) setName(file.name.replace(/\.[^.]+$/, ''));
+      if (!nameTouched) setName(file.name.replace(/\.[^.]+$/, ''));
     } catch (e) {
       setReadError(`${file.name} could not be read: ${e instanceof Error ? e.message : String(e)}`);
     }
@@ -203,6 +204,7 @@ export default function CsvImport({ teamId, onClose, onSaved }: { teamId: number
                     aria-invalid={nameError ? true : undefined}
                     onChange={(e) => {
                       setName(e.target.value);
+                      setNameTouched(true);
                       setNameError(e.target.value.trim() ? null : 'Name must not be empty');
                     }}
                   />

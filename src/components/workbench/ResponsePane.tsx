@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
+import './traces.css';
 import { useWorkbench } from '../../lib/workbench/store';
 import { Runner, type RunDone } from '../../lib/workbench/runner';
 import { dayClock, summaryOf } from '../../lib/workbench/figures';
@@ -474,10 +475,10 @@ function Playback({ shown }: { shown: Shown }) {
           Inside surface <span ref={surfOut} data-testid="readout-inside-surface" className="text-ink font-semibold" /> °C · inside heat flux <span ref={fluxOut} className="text-ink font-semibold" /> W/m²
         </p>
       </div>
-      <div className="rounded border border-line bg-panel p-2" data-testid="trace-temperatures">
+      <div className="wp-traces rounded border border-line bg-panel p-2" data-testid="trace-temperatures">
         <div ref={tempBox} />
       </div>
-      <div className="rounded border border-line bg-panel p-2" data-testid="trace-flux">
+      <div className="wp-traces rounded border border-line bg-panel p-2" data-testid="trace-flux">
         <div ref={fluxBox} />
       </div>
       <div className="flex flex-wrap gap-2">
