@@ -125,3 +125,32 @@ describe('Response pane', () => {
     await context.close();
   });
 });
+
+describe('Report page', () => {
+  it('prints the build-up, the exposure, the analytic and simulated figures, the assumptions and the cautions', async () => {
+    const { page, context, errors } = await openPage(browser, { userId: 'demo-checker' });
+    const res = await page.goto(`/assemblies/${assemblyId}/report`);
+    expect(res?.status()).toBe(200);
+    const report = page.getByTestId('report');
+    await expect(report.locator('h1').textContent()).resolves.toBe('West wall, brick with external insulation');
+    await expect(report.textContent()).resolves.toMatch(/Stone wool slab/);
+    const figures = await page.getByTestId('report-figures').textContent();
+    expect(figures).toMatch(/U-value \d\.\d{3} W\/m²K/);
+    expect(figures).toMatch(/Decrement factor/);
+    expect(figures).toMatch(/Dew point/);
+    await expect(page.getByTestId('caution').textContent()).resolves.toMatch(/qualified professional/);
+    await expect(report.textContent()).resolves.toMatch(/EN ISO 13788/);
+    await page.emulateMedia({ media: 'print' });
+    await expect(page.locator('header.no-print').isVisible()).resolves.toBe(false);
+    await screenshot(page, 'report-print');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('answers 404 for an assembly of no team of the reader', async () => {
+    const { page, context } = await openPage(browser, { userId: 'demo-checker' });
+    const res = await page.goto('/assemblies/999999/report');
+    expect(res?.status()).toBe(404);
+    await context.close();
+  });
+});
