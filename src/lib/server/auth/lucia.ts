@@ -19,13 +19,14 @@ export const lucia = new Lucia(adapter, {
   getUserAttributes: (attributes) => ({
     email: attributes.email,
     name: attributes.name,
-    emailVerified: attributes.email_verified_at !== null,
+    // the drizzle adapter hands back the row with the schema's camelCase keys
+    emailVerified: attributes.emailVerifiedAt !== null && attributes.emailVerifiedAt !== undefined,
   }),
 });
 
 declare module 'lucia' {
   interface Register {
     Lucia: typeof lucia;
-    DatabaseUserAttributes: { email: string; name: string; email_verified_at: Date | null };
+    DatabaseUserAttributes: { email: string; name: string; emailVerifiedAt: Date | null };
   }
 }

@@ -126,6 +126,13 @@ export async function revokeShare(shareId: number, actor: { id: string; teamId: 
   return { ok: true, revokedAt };
 }
 
+/** the document without the links to the team's library (they name the team's material ids) */
+function withoutLibraryRefs(model: unknown): unknown {
+  if (!model || typeof model !== 'object' || !Array.isArray((model as { layers?: unknown }).layers)) return model;
+  const doc = model as { layers: Record<string, unknown>[] };
+  return { ...doc, layers: doc.layers.map((l) => ({ ...l, materialRef: null })) };
+}
+
 /** what a guest may see: one revision, its assembly's name and element, its job's name, its runs */
 export interface SharedRevision {
   assembly: { name: string; element: 'wall' | 'roof' | 'floor' };
@@ -178,7 +185,7 @@ export async function openShare(token: string, ip = '', record = true): Promise<
     shared: {
       assembly: { name: row.assemblyName, element: row.element },
       job: { name: row.jobName },
-      revision: { number: row.number, state: row.state, createdAt: row.createdAt, model: row.model },
+      revision: { number: row.number, state: row.state, createdAt: row.createdAt, model: withoutLibraryRefs(row.model) },
       runs,
     },
   };
