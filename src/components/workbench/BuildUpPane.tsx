@@ -24,18 +24,22 @@ const instructions: ScreenReaderInstructions = {
     'To move a layer, press Space or Enter on its handle, move it with the Up and Down arrow keys, then press Space or Enter again to drop it, or Escape to put it back.',
 };
 
-function announcements(layers: DocLayer[]): Announcements {
-  const name = (id: UniqueIdentifier) => layers.find((l) => l.id === id)?.name ?? 'the layer';
-  const pos = (id: UniqueIdentifier | undefined) => layers.findIndex((l) => l.id === id) + 1;
-  const n = layers.length;
-  return {
-    onDragStart: ({ active }) => `Picked up ${name(active.id)} at position ${pos(active.id)} of ${n}.`,
-    onDragOver: ({ active, over }) => (over ? `${name(active.id)} is over position ${pos(over.id)} of ${n}.` : `${name(active.id)} is no longer over the stack.`),
-    onDragEnd: ({ active, over }) =>
-      over ? `Moved ${name(active.id)} to position ${pos(over.id)} of ${n}.` : `${name(active.id)} was dropped back at position ${pos(active.id)} of ${n}.`,
-    onDragCancel: ({ active }) => `Moving was cancelled; ${name(active.id)} stays at position ${pos(active.id)} of ${n}.`,
-  };
-}
+// read the stack when a message is made, so the drag context never re-renders for a new message table
+const layersNow = (): DocLayer[] => useWorkbench.getState().doc.layers;
+const nameOf = (id: UniqueIdentifier) => layersNow().find((l) => l.id === id)?.name ?? 'the layer';
+const posOf = (id: UniqueIdentifier | undefined) => layersNow().findIndex((l) => l.id === id) + 1;
+const announcements: Announcements = {
+  onDragStart: ({ active }) => `Picked up ${nameOf(active.id)} at position ${posOf(active.id)} of ${layersNow().length}.`,
+  onDragOver: ({ active, over }) =>
+    over ? `${nameOf(active.id)} is over position ${posOf(over.id)} of ${layersNow().length}.` : `${nameOf(active.id)} is no longer over the stack.`,
+  onDragEnd: ({ active, over }) =>
+    over
+      ? // onDragEnd has already moved the card in the store, so its own position is the new one
+        `Moved ${nameOf(active.id)} to position ${posOf(active.id)} of ${layersNow().length}.`
+      : `${nameOf(active.id)} was dropped back at position ${posOf(active.id)} of ${layersNow().length}.`,
+  onDragCancel: ({ active }) => `Moving was cancelled; ${nameOf(active.id)} stays at position ${posOf(active.id)} of ${layersNow().length}.`,
+};
+const a11y = { announcements, screenReaderInstructions: instructions };
 
 /** the layer stack (outside at the top), its section drawing, and the live figures under it */
 export default function BuildUpPane({ readOnly }: { readOnly: boolean }) {
@@ -52,8 +56,9 @@ export default function BuildUpPane({ readOnly }: { readOnly: boolean }) {
     useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
     useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
   );
-  const ids = useMemo(() => layers.map((l) => l.id), [layers]);
-  const a11y = useMemo(() => ({ announcements: announcements(layers), screenReaderInstructions: instructions }), [layers]);
+  // the same array while only values change, so the sortable cards do not all re-render on an edit
+  const idKey = layers.map((l) => l.id).join('|');
+  const ids = useMemo(() => (idKey ? idKey.split('|') : []), [idKey]);
 
   const onDragEnd = useCallback(
     ({ active, over }: DragEndEvent) => {
@@ -100,35 +105,36 @@ export default function BuildUpPane({ readOnly }: { readOnly: boolean }) {
         {addedNote}
       </p>
 
-      <div className="grid grid-cols-[minmax(0,1fr)_auto] gap-3">
-        <div className="min-w-0">
-          <div className="mb-1 flex items-center gap-2 text-xs font-semibold uppercase tracking-wide text-ink-soft" aria-hidden="true">
-            <span className="h-px flex-1 bg-line-strong" /> Outside <span className="h-px flex-1 bg-line-strong" />
+      <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_minmax(0,34rem)]">
+        <div className="grid grid-cols-[minmax(0,1fr)_auto] gap-3">
+          <div className="min-w-0">
+            <div className="mb-1 flex items-center gap-2 text-xs font-semibold uppercase tracking-wide text-ink-soft" aria-hidden="true">
+              <span className="h-px flex-1 bg-line-strong" /> Outside <span className="h-px flex-1 bg-line-strong" />
+            </div>
+            {layers.length === 0 ? (
+              <p className="rounded border border-dashed border-line-strong px-4 py-8 text-center text-sm text-ink-soft">
+                No layers yet. {readOnly ? '' : 'Use “Add layer…” to start from the library.'}
+              </p>
+            ) : (
+              <DndContext sensors={sensors} collisionDetection={closestCenter} onDragEnd={onDragEnd} accessibility={a11y}>
+                <SortableContext items={ids} strategy={verticalListSortingStrategy}>
+                  <ol className="space-y-1.5" aria-label="Layers, outside to inside" data-testid="layer-stack">
+                    {layers.map((l, i) => (
+                      <LayerCard key={l.id} layer={l} index={i} count={layers.length} readOnly={readOnly} resistance={figures?.layers[i]?.resistance ?? null} />
+                    ))}
+                  </ol>
+                </SortableContext>
+              </DndContext>
+            )}
+            <div className="mt-1 flex items-center gap-2 text-xs font-semibold uppercase tracking-wide text-ink-soft" aria-hidden="true">
+              <span className="h-px flex-1 bg-line-strong" /> Inside <span className="h-px flex-1 bg-line-strong" />
+            </div>
           </div>
-          {layers.length === 0 ? (
-            <p className="rounded border border-dashed border-line-strong px-4 py-8 text-center text-sm text-ink-soft">
-              No layers yet. {readOnly ? '' : 'Use “Add layer…” to start from the library.'}
-            </p>
-          ) : (
-            <DndContext sensors={sensors} collisionDetection={closestCenter} onDragEnd={onDragEnd} accessibility={a11y}>
-              <SortableContext items={ids} strategy={verticalListSortingStrategy}>
-                <ol className="space-y-1.5" aria-label="Layers, outside to inside" data-testid="layer-stack">
-                  {layers.map((l, i) => (
-                    <LayerCard key={l.id} layer={l} index={i} count={layers.length} readOnly={readOnly} resistance={figures?.layers[i]?.resistance ?? null} />
-                  ))}
-                </ol>
-              </SortableContext>
-            </DndContext>
-          )}
-          <div className="mt-1 flex items-center gap-2 text-xs font-semibold uppercase tracking-wide text-ink-soft" aria-hidden="true">
-            <span className="h-px flex-1 bg-line-strong" /> Inside <span className="h-px flex-1 bg-line-strong" />
-          </div>
+          <SectionDrawing layers={layers} />
         </div>
-        <SectionDrawing layers={layers} />
-      </div>
-
-      <div className="mt-4">
-        <LiveFigures layers={layers} exposure={exposure} figures={figures} />
+        <div className="min-w-0">
+          <LiveFigures layers={layers} exposure={exposure} figures={figures} />
+        </div>
       </div>
 
       {picking && teamId !== null ? (

@@ -9,8 +9,8 @@ const WIDTH = 128;
 const BAND_X = 26;
 const BAND_W = 74;
 const TOP = 22;
-/** drawing height of the whole build-up, px */
-const DRAW_H = 460;
+/** drawing height of the whole build-up, px: about the height of the cards beside it */
+const drawHeight = (layers: number) => Math.min(560, Math.max(240, layers * 80));
 /** a layer thinner than this many px is drawn at it, so it can be seen and pointed at */
 const MIN_PX = 3;
 
@@ -30,7 +30,7 @@ function SectionDrawing({ layers }: { layers: DocLayer[] }) {
   const setHighlighted = useWorkbench((s) => s.setHighlighted);
   const total = layers.reduce((a, l) => a + l.thickness, 0);
   if (layers.length === 0 || total <= 0) return null;
-  const scale = DRAW_H / (total * 1000); // px per mm
+  const scale = drawHeight(layers.length) / (total * 1000); // px per mm
   let y = TOP;
   let widened = false;
   const bands = layers.map((l) => {

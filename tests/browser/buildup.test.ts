@@ -1,0 +1,210 @@
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { and, eq } from 'drizzle-orm';
+import { baseUrl, launch, openPage, outsideRequests, screenshot } from '../support/browser';
+import { closeTestDb, sessionFor, SESSION_COOKIE, testDb } from '../support/db';
+import { assemblies, jobs, memberships, teams, users } from '../../src/lib/server/db/schema';
+
+let browser: Browser;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+  ({ browser, close } = await launch());
+});
+afterAll(async () => {
+  await close();
+  await closeTestDb();
+});
+
+/** the id of a demo assembly of the Harrow Lane job, by its name */
+async function demoAssembly(name: string): Promise<number> {
+  const rows = await testDb()
+    .select({ id: assemblies.id })
+    .from(assemblies)
+    .innerJoin(jobs, eq(jobs.id, assemblies.jobId))
+    .where(and(eq(jobs.name, 'Harrow Lane Library re-cladding'), eq(assemblies.name, name)))
+    .limit(1);
+  if (!rows[0]) throw new Error(`the demo assembly “${name}” is not seeded`);
+  return rows[0].id;
+}
+
+const ids = (page: Page) => page.getByTestId('layer-card').evaluateAll((els) => els.map((e) => e.getAttribute('data-layer-id')));
+const names = (page: Page) => page.getByTestId('layer-card').evaluateAll((els) => els.map((e) => e.getAttribute('data-name')));
+const figure = async (page: Page, id: string) => (await page.getByTestId(id).textContent())?.trim() ?? '';
+
+/** the time from a change made in the page to the next painted frame, ms */
+function timeToFrame(page: Page, action: string, arg: string): Promise<number> {
+  return page.evaluate(
+    ([action, arg]) =>
+      new Promise<number>((resolve) => {
+        const t0 = performance.now();
+        if (action === 'key') {
+          document.activeElement!.dispatchEvent(new KeyboardEvent('keydown', { key: arg === 'Space' ? ' ' : arg, code: arg, bubbles: true, cancelable: true }));
+        } else {
+          const input = document.activeElement as HTMLInputElement;
+          Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!.call(input, arg);
+          input.dispatchEvent(new Event('input', { bubbles: true }));
+        }
+        requestAnimationFrame(() => setTimeout(() => resolve(performance.now() - t0), 0));
+      }),
+    [action, arg] as const,
+  );
+}
+
+const WOOL = 'Stone wool slab for rendered facades (140 kg/m³)';
+const BRICK = 'Clay brick, protected (1700 kg/m³)';
+const RENDER = 'Cement–sand render (1800 kg/m³)';
+const PLASTER = 'Dense gypsum plaster (1300 kg/m³)';
+
+describe('build-up pane', () => {
+  it('reorders by mouse and keyboard with the U-value unchanged and the time lag moving, adds from the library, names a bad field, and undoes it all', async () => {
+    const id = await demoAssembly('West wall, brick with external insulation');
+    const { page, context, requests, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    await page.goto(`/assemblies/${id}`);
+    await page.getByTestId('layer-card').first().waitFor();
+    expect(await names(page)).toEqual([RENDER, WOOL, BRICK, PLASTER]);
+    const u0 = await figure(page, 'fig-u');
+    const lag0 = await figure(page, 'fig-lag');
+    const f0 = await figure(page, 'fig-decrement');
+    expect(Number(u0)).toBeGreaterThan(0);
+    // ISO 13786 for heavy masonry behind outside insulation: a lag of many hours and a small decrement (common practice: lag > 8 h, f < 0.3)
+    expect(Number(lag0)).toBeGreaterThan(8);
+    expect(Number(f0)).toBeLessThan(0.3);
+
+    // mouse: drag the insulation from outside the brick to inside it
+    const handle = page.getByTestId('layer-card').nth(1).getByTestId('drag-handle');
+    const from = (await handle.boundingBox())!;
+    const target = (await page.getByTestId('layer-card').nth(2).boundingBox())!;
+    await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+    await page.mouse.down();
+    for (let i = 1; i <= 12; i++) {
+      await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2 + ((target.y + target.height * 0.8 - from.y - from.height / 2) * i) / 12);
+    }
+    await page.mouse.up();
+    await expect.poll(() => names(page)).toEqual([RENDER, BRICK, WOOL, PLASTER]);
+    // series resistances do not depend on their order (ISO 6946 §6.7.1); the periodic response does (ISO 13786)
+    expect(await figure(page, 'fig-u')).toBe(u0);
+    const lag1 = await figure(page, 'fig-lag');
+    expect(lag1).not.toBe(lag0);
+    expect(await figure(page, 'fig-decrement')).not.toBe(f0);
+    expect(await page.getByTestId('unsaved').isVisible()).toBe(true);
+
+    // keyboard: pick the insulation up, move it one place towards the outside, drop it
+    await page.getByTestId('layer-card').nth(2).getByTestId('drag-handle').focus();
+    // dnd-kit's keyboard sensor listens for the next keys a moment after it picks a card up
+    await page.keyboard.press('Space');
+    await page.waitForTimeout(80);
+    await page.keyboard.press('ArrowUp');
+    await page.waitForTimeout(80);
+    await page.keyboard.press('Space');
+    await expect.poll(() => names(page)).toEqual([RENDER, WOOL, BRICK, PLASTER]);
+    await expect
+      .poll(() => page.locator('[id^="DndLiveRegion"]').first().textContent())
+      .toBe(`Moved ${WOOL} to position 2 of 4.`);
+    expect(await figure(page, 'fig-u')).toBe(u0);
+    expect(await figure(page, 'fig-lag')).toBe(lag0);
+    expect(await figure(page, 'fig-lag')).not.toBe(lag1);
+
+    // add a layer from the library, found by searching, with the keyboard
+    await page.getByTestId('add-layer').click();
+    const picker = page.getByTestId('material-picker');
+    await picker.getByRole('searchbox').fill('plasterboard');
+    await expect.poll(() => picker.getByRole('listbox').getByRole('option').first().textContent()).toContain('Gypsum plasterboard');
+    await page.keyboard.press('Enter');
+    await picker.waitFor({ state: 'detached' });
+    expect(await names(page)).toEqual([RENDER, WOOL, BRICK, PLASTER, 'Gypsum plasterboard (700 kg/m³)']);
+    const u2 = await figure(page, 'fig-u');
+    expect(Number(u2)).toBeLessThan(Number(u0));
+
+    // break a field: a clear message on it, and the figures keep the last valid model
+    const brickThickness = page.getByTestId('layer-card').nth(2).locator('input[data-field="thickness"]');
+    await brickThickness.fill('0');
+    const message = page.getByTestId('layer-card').nth(2).getByRole('alert');
+    await expect.poll(() => message.textContent()).toBe('Thickness must be greater than 0 mm');
+    expect(await brickThickness.getAttribute('aria-invalid')).toBe('true');
+    expect(await figure(page, 'fig-u')).toBe(u2);
+    await brickThickness.fill('-');
+    await expect.poll(() => message.textContent()).toBe('Thickness must be a number in mm');
+    await page.getByTestId('layer-card').nth(2).locator('input[data-field="conductivity"]').click();
+    expect(await message.textContent()).toBe('Thickness must be a number in mm');
+    await screenshot(page, 'buildup');
+
+    // undo everything with Ctrl+Z, back to revision 1 as it was opened
+    const undo = page.getByRole('button', { name: 'Undo', exact: true });
+    for (let i = 0; i < 10 && (await undo.isEnabled()); i++) await page.keyboard.press('Control+z');
+    expect(await undo.isEnabled()).toBe(false);
+    expect(await names(page)).toEqual([RENDER, WOOL, BRICK, PLASTER]);
+    expect(await figure(page, 'fig-u')).toBe(u0);
+    expect(await figure(page, 'fig-lag')).toBe(lag0);
+    expect(await page.getByTestId('unsaved').count()).toBe(0);
+    expect(await page.getByRole('alert').filter({ hasText: 'Thickness' }).count()).toBe(0);
+    // and redo brings the first move back
+    await page.keyboard.press('Control+Shift+z');
+    expect(await names(page)).toEqual([RENDER, BRICK, WOOL, PLASTER]);
+
+    expect(outsideRequests(requests)).toEqual([]);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('keeps reorders and field edits of ten layers within a frame or two (measured, reported by the run)', async () => {
+    const id = await demoAssembly('Stair tower, timber frame infill');
+    const { page, context, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    await page.goto(`/assemblies/${id}`);
+    await page.getByTestId('layer-card').first().waitFor();
+    for (let i = 0; i < 4; i++) await page.getByRole('button', { name: /^Duplicate / }).nth(i).click();
+    expect(await page.getByTestId('layer-card').count()).toBe(10);
+
+    const reorder: number[] = [];
+    const edit: number[] = [];
+    for (let round = 0; round < 8; round++) {
+      const card = round % 2 === 0 ? 0 : 1;
+      await page.getByTestId('layer-card').nth(card).getByTestId('drag-handle').focus();
+      const before = await ids(page);
+      await page.keyboard.press('Space');
+      await page.waitForTimeout(80);
+      await page.keyboard.press(round % 2 === 0 ? 'ArrowDown' : 'ArrowUp');
+      await page.waitForTimeout(80);
+      reorder.push(await timeToFrame(page, 'key', 'Space'));
+      await expect.poll(() => ids(page)).not.toEqual(before);
+    }
+    const thickness = page.getByTestId('layer-card').nth(3).locator('input[data-field="thickness"]');
+    await thickness.focus();
+    for (let round = 0; round < 10; round++) edit.push(await timeToFrame(page, 'input', String(140 + round)));
+    const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+    // the figure for the report: time from the change to the next painted frame
+    console.log(
+      `[buildup timing] 10 layers: reorder median ${median(reorder).toFixed(1)} ms, max ${Math.max(...reorder).toFixed(1)} ms; ` +
+        `field edit median ${median(edit).toFixed(1)} ms, max ${Math.max(...edit).toFixed(1)} ms`,
+    );
+    // a generous sanity bound only (a loaded shared machine); the real measure is the logged one
+    expect(median(reorder)).toBeLessThan(200);
+    expect(median(edit)).toBeLessThan(200);
+    expect(await thickness.inputValue()).toBe('149');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('shows a signed-out visitor the sign-in page and another team’s member a 404', async () => {
+    const id = await demoAssembly('Plant room, metal sandwich panel');
+    const { page, context } = await openPage(browser);
+    const res = await page.goto(`/assemblies/${id}`);
+    expect(new URL(page.url()).pathname).toBe('/signin');
+    expect(new URL(page.url()).searchParams.get('next')).toBe(`/assemblies/${id}`);
+    expect(res?.status()).toBe(200);
+    await context.close();
+
+    // a member of another team: the assembly is not confirmed to exist
+    const db = testDb();
+    const userId = `buildup-outsider-${Date.now()}`;
+    await db.insert(users).values({ id: userId, email: `${userId}@example.test`, name: 'Outside Engineer', passwordHash: 'x', emailVerifiedAt: new Date() });
+    const [team] = await db.insert(teams).values({ name: `Other studio ${userId}` }).$returningId();
+    await db.insert(memberships).values({ teamId: team.id, userId, role: 'engineer' });
+    const cookie = `${SESSION_COOKIE}=${await sessionFor(userId)}`;
+    const page404 = await fetch(`${baseUrl()}/assemblies/${id}`, { headers: { cookie }, redirect: 'manual' });
+    expect(page404.status).toBe(404);
+    expect(await page404.text()).not.toContain('Plant room');
+    const api404 = await fetch(`${baseUrl()}/api/assemblies/${id}`, { headers: { cookie } });
+    expect(api404.status).toBe(404);
+  });
+});
