@@ -105,7 +105,7 @@ export default function BuildUpPane({ readOnly }: { readOnly: boolean }) {
         {addedNote}
       </p>
 
-      <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_minmax(0,34rem)]">
+      <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_minmax(0,40rem)]">
         <div className="grid grid-cols-[minmax(0,1fr)_auto] gap-3">
           <div className="min-w-0">
             <div className="mb-1 flex items-center gap-2 text-xs font-semibold uppercase tracking-wide text-ink-soft" aria-hidden="true">

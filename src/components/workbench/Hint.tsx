@@ -4,7 +4,7 @@ import { useId, type ReactNode } from 'react';
  * a figure's label with the note on how it is computed: shown on hover and on keyboard focus,
  * and read by screen readers through aria-describedby
  */
-export default function Hint({ children, text, className = '' }: { children: ReactNode; text: string; className?: string }) {
+export default function Hint({ children, text, className = '', align = 'left' }: { children: ReactNode; text: string; className?: string; align?: 'left' | 'right' }) {
   const id = useId();
   return (
     <span className={`group relative inline-flex items-baseline ${className}`}>
@@ -14,7 +14,10 @@ export default function Hint({ children, text, className = '' }: { children: Rea
       <span
         role="tooltip"
         id={id}
-        className="pointer-events-none invisible absolute left-0 top-full z-30 mt-1 w-72 rounded border border-line-strong bg-ink px-2.5 py-1.5 text-left text-xs font-normal normal-case leading-snug tracking-normal text-paper opacity-0 shadow-lg transition-opacity group-hover:visible group-hover:opacity-100 group-focus-within:visible group-focus-within:opacity-100"
+        // display:none while hidden, so a tooltip near the edge never widens the page
+        className={`pointer-events-none absolute top-full z-30 mt-1 hidden w-72 rounded border border-line-strong bg-ink px-2.5 py-1.5 text-left text-xs font-normal normal-case leading-snug tracking-normal text-paper shadow-lg group-hover:block group-focus-within:block ${
+          align === 'right' ? 'right-0' : 'left-0'
+        }`}
       >
         {text}
       </span>

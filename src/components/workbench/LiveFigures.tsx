@@ -11,11 +11,13 @@ interface Props {
   figures: Figures | null;
 }
 
-function Figure({ label, hint, value, unit, testId }: { label: string; hint: string; value: string; unit: string; testId: string }) {
+function Figure({ label, hint, value, unit, testId, align = 'left' }: { label: string; hint: string; value: string; unit: string; testId: string; align?: 'left' | 'right' }) {
   return (
     <div className="rounded border border-line bg-panel px-3 py-2">
       <dt className="text-xs font-semibold text-ink-soft">
-        <Hint text={hint}>{label}</Hint>
+        <Hint text={hint} align={align}>
+          {label}
+        </Hint>
       </dt>
       <dd className="mt-0.5 flex items-baseline gap-1">
         <span className="text-xl font-semibold tabular text-ink" data-testid={testId}>
@@ -26,6 +28,9 @@ function Figure({ label, hint, value, unit, testId }: { label: string; hint: str
     </div>
   );
 }
+
+/** the unit under a column heading */
+const Unit = ({ children }: { children: string }) => <span className="block text-[10px] font-normal text-ink-faint">{children}</span>;
 
 /** the figures of the build-up, recomputed by analyse() on every edit */
 function LiveFigures({ layers, exposure, figures }: Props) {
@@ -58,6 +63,7 @@ function LiveFigures({ layers, exposure, figures }: Props) {
           hint={`R = R_se + Σ d/λ + R_si = ${fixed(rse, 2)} + ${fixed(sumR, 3)} + ${fixed(rsi, 2)} m²K/W (surface resistances from the exposure; ISO 6946 conventions).`}
         />
         <Figure
+          align="right"
           label="U-value"
           testId="fig-u"
           value={fixed(figures.steady.uValue, 3)}
@@ -79,6 +85,7 @@ function LiveFigures({ layers, exposure, figures }: Props) {
           hint={`f = |Y₁₂| / U for a ${fixed(periodH, 0)} h sine, by the ISO 13786 transfer matrices (analytic, no time stepping): the share of the outdoor swing's heat flux that reaches the room. |Y₁₂| = ${fixed(p.periodicTransmittance, 3)} W/m²K.`}
         />
         <Figure
+          align="right"
           label="Time lag"
           testId="fig-lag"
           value={fixed(p.timeLag / 3600, 1)}
@@ -91,32 +98,45 @@ function LiveFigures({ layers, exposure, figures }: Props) {
         <table className="w-full text-sm tabular" aria-label="Figures per layer">
           <thead>
             <tr className="border-b border-line text-left text-xs text-ink-soft">
-              <th scope="col" className="px-2 py-1.5 font-semibold">#</th>
-              <th scope="col" className="px-2 py-1.5 font-semibold">Layer</th>
-              <th scope="col" className="px-2 py-1.5 text-right font-semibold">
-                <Hint text="Layer thickness d, mm.">d mm</Hint>
+              <th scope="col" className="px-2 py-1.5 align-bottom font-semibold">#</th>
+              <th scope="col" className="px-2 py-1.5 align-bottom font-semibold">Layer</th>
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+                <Hint text="Layer thickness d, mm.">d</Hint>
+                <Unit>mm</Unit>
               </th>
-              <th scope="col" className="px-2 py-1.5 text-right font-semibold">
-                <Hint text="Thermal resistance R = d / λ, m²K/W.">R m²K/W</Hint>
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+                <Hint text="Thermal resistance R = d / λ, m²K/W.">R</Hint>
+                <Unit>m²K/W</Unit>
               </th>
-              <th scope="col" className="px-2 py-1.5 text-right font-semibold">
-                <Hint text="Thermal diffusivity a = λ / (ρ·c), shown in 10⁻⁷ m²/s (0.1 mm²/s).">a 10⁻⁷ m²/s</Hint>
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+                <Hint text="Thermal diffusivity a = λ / (ρ·c), shown in 10⁻⁷ m²/s (0.1 mm²/s).">a</Hint>
+                <Unit>10⁻⁷ m²/s</Unit>
               </th>
-              <th scope="col" className="px-2 py-1.5 text-right font-semibold">
-                <Hint text={`Periodic penetration depth δ = √(a·P/π) for P = ${fixed(periodH, 0)} h, mm: the depth at which a surface swing falls to 1/e of its amplitude in a thick layer.`}>δ mm</Hint>
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+                <Hint text={`Periodic penetration depth δ = √(a·P/π) for P = ${fixed(periodH, 0)} h, mm: the depth at which a surface swing falls to 1/e of its amplitude in a thick layer.`} align="right">
+                  δ
+                </Hint>
+                <Unit>mm</Unit>
               </th>
-              <th scope="col" className="px-2 py-1.5 text-right font-semibold">
-                <Hint text={`Fourier number for one period, Fo = a·P / d² with P = ${fixed(periodH, 0)} h (dimensionless): above about 1 the layer follows the daily swing through its whole thickness.`}>Fo</Hint>
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+                <Hint text={`Fourier number for one period, Fo = a·P / d² with P = ${fixed(periodH, 0)} h (dimensionless): above about 1 the layer follows the daily swing through its whole thickness.`} align="right">
+                  Fo
+                </Hint>
+                <Unit>–</Unit>
               </th>
-              <th scope="col" className="px-2 py-1.5 text-right font-semibold">
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
                 <Hint
+                  align="right"
                   text={`Layer Biot number Bi = h̄·(d/2)/λ, with h̄ = (1/R_se + 1/R_si)/2 = ${fixed(hBar, 1)} W/m²K the mean film coefficient of the assembly (the engine's layer definition). Bi < 0.1 marks a layer that behaves as one lumped temperature (common practice).`}
                 >
                   Bi
                 </Hint>
+                <Unit>–</Unit>
               </th>
-              <th scope="col" className="px-2 py-1.5 font-semibold">
-                <Hint text="Lumped: Bi < 0.1, so the temperature across the layer is nearly uniform at any moment (common practice).">Lumped</Hint>
+              <th scope="col" className="px-2 py-1.5 align-bottom font-semibold">
+                <Hint align="right" text="Lumped: Bi < 0.1, so the temperature across the layer is nearly uniform at any moment (common practice).">
+                  Lumped
+                </Hint>
               </th>
             </tr>
           </thead>
@@ -133,7 +153,7 @@ function LiveFigures({ layers, exposure, figures }: Props) {
                   className={`border-b border-line/60 last:border-0 ${highlightedId === layer.id ? 'bg-accent-soft' : ''}`}
                 >
                   <td className="px-2 py-1 text-ink-faint">{i + 1}</td>
-                  <td className="max-w-48 truncate px-2 py-1" title={layer.name}>
+                  <td className="max-w-56 truncate px-2 py-1" title={layer.name}>
                     {layer.name}
                   </td>
                   <td className="px-2 py-1 text-right">{mm(layer.thickness)}</td>
