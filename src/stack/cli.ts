@@ -119,11 +119,13 @@ interface VitestCounts {
 }
 
 /** run vitest projects; the JSON reporter gives the counts for the closing line */
-function vitest(projects: string[], env: Record<string, string>, reportFile: string): VitestCounts & { ok: boolean } {
+// asynchronous on purpose: the fake SMTP server lives in this process and must keep answering while the tests send mail
+async function vitest(projects: string[], env: Record<string, string>, reportFile: string): Promise<VitestCounts & { ok: boolean }> {
   const args = [path.join(root, 'node_modules/vitest/vitest.mjs'), 'run', '--config', 'tests/vitest.config.ts'];
   for (const p of projects) args.push('--project', p);
   args.push('--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`);
-  const r = spawnSync(process.execPath, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
+  const child = spawn(process.execPath, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
+  const r = await new Promise<{ status: number | null }>((resolve) => child.once('exit', (status) => resolve({ status })));
   let counts: VitestCounts = { passed: 0, failed: 0, skipped: 0 };
   if (existsSync(reportFile)) {
     const report = JSON.parse(readFileSync(reportFile, 'utf8')) as {
@@ -179,14 +181,14 @@ async function test(): Promise<void> {
 
   ok = step('type check: the thermal engine alone (ES2022, no DOM, no Node types)', 'npx', ['tsc', '-p', 'src/lib/thermal/tsconfig.json']) && ok;
   ok = step('type check: astro check', process.execPath, [path.join(root, 'node_modules/astro/astro.js'), 'check', '--minimumSeverity', 'warning']) && ok;
-  add(vitest(['unit', 'integration'], env, path.join(dataDir, 'vitest-1.json')));
+  add(await vitest(['unit', 'integration'], env, path.join(dataDir, 'vitest-1.json')));
 
   try {
     ensureBuilt(root);
     const port = await freePort();
     const app: AppProcess = await startApp(root, { ...env, PUBLIC_BASE_URL: `http://127.0.0.1:${port}` }, '127.0.0.1', port);
     stoppers.push(() => app.stop());
-    add(vitest(['e2e'], { ...env, WALLPULSE_BASE_URL: app.url }, path.join(dataDir, 'vitest-2.json')));
+    add(await vitest(['e2e'], { ...env, WALLPULSE_BASE_URL: app.url }, path.join(dataDir, 'vitest-2.json')));
   } catch (err) {
     log(`could not run the browser tests: ${(err as Error).message}`);
     ok = false;
