@@ -3,7 +3,8 @@ import type { Browser, Page } from 'playwright-core';
 import { and, eq } from 'drizzle-orm';
 import { baseUrl, launch, openPage, outsideRequests, screenshot } from '../support/browser';
 import { closeTestDb, sessionFor, SESSION_COOKIE, testDb } from '../support/db';
-import { assemblies, jobs, memberships, teams, users } from '../../src/lib/server/db/schema';
+import { assemblies, jobs, memberships, revisions, teams, users } from '../../src/lib/server/db/schema';
+import { DEMO_ASSEMBLIES } from '../../src/lib/server/seed/demoJob';
 
 let browser: Browser;
 let close: () => Promise<void>;
@@ -206,5 +207,78 @@ describe('build-up pane', () => {
     expect(await page404.text()).not.toContain('Plant room');
     const api404 = await fetch(`${baseUrl()}/api/assemblies/${id}`, { headers: { cookie } });
     expect(api404.status).toBe(404);
+  });
+});
+
+describe('saving the build-up', () => {
+  it('offers unsaved work back after a reload, shows what a newer revision changed, and saves on top of it', async () => {
+    // a team of its own, so the demo job stays as seeded
+    const db = testDb();
+    const run = Date.now().toString(36);
+    const [team] = await db.insert(teams).values({ name: `Save check ${run}` }).$returningId();
+    const people = [`save-eng-${run}`, `save-admin-${run}`];
+    for (const [i, id] of people.entries()) {
+      await db.insert(users).values({ id, email: `${id}@example.test`, name: i ? 'Second Saver' : 'First Saver', passwordHash: 'x', emailVerifiedAt: new Date() });
+      await db.insert(memberships).values({ teamId: team.id, userId: id, role: i ? 'admin' : 'engineer' });
+    }
+    const [job] = await db.insert(jobs).values({ teamId: team.id, name: 'Save check job' }).$returningId();
+    const [assembly] = await db.insert(assemblies).values({ jobId: job.id, name: 'Panel for the save check' }).$returningId();
+    const panel = DEMO_ASSEMBLIES.find((a) => a.name.startsWith('Plant room'))!.doc;
+    const [rev1] = await db.insert(revisions).values({ assemblyId: assembly.id, number: 1, model: panel, note: 'first', authorId: people[0] }).$returningId();
+
+    const { page, context, errors } = await openPage(browser, { userId: people[0] });
+    await page.goto(`/assemblies/${assembly.id}`);
+    await page.getByTestId('layer-card').first().waitFor();
+    const outerSteel = page.getByTestId('layer-card').nth(0).locator('input[data-field="thickness"]');
+    await outerSteel.fill('0.7');
+    await outerSteel.blur();
+    await page.waitForTimeout(600); // the draft is written a moment after the last edit
+
+    // reload: the edit is offered back
+    await page.reload();
+    await page.getByRole('button', { name: 'Restore them' }).click();
+    expect(await outerSteel.inputValue()).toBe('0.7');
+    expect(await page.getByTestId('unsaved').isVisible()).toBe(true);
+
+    // meanwhile a colleague saves revision 2 with a thicker core
+    const theirs = structuredClone(panel);
+    theirs.layers[1].thickness = 0.1;
+    const cookie = `${SESSION_COOKIE}=${await sessionFor(people[1])}`;
+    const saved = await fetch(`${baseUrl()}/api/assemblies/${assembly.id}/revisions`, {
+      method: 'POST',
+      headers: { cookie, 'content-type': 'application/json', origin: baseUrl() },
+      body: JSON.stringify({ baseRevisionId: rev1.id, model: theirs, note: 'core to 100 mm' }),
+    });
+    expect(saved.status).toBe(201);
+
+    // our save meets it: the dialog says what differs, and saving on top makes revision 3
+    await page.getByTestId('save').click();
+    await page.getByTestId('save-dialog').getByRole('textbox').fill('thicker outer sheet');
+    await page.getByRole('button', { name: 'Save revision 2' }).click();
+    const stale = page.getByTestId('stale-dialog');
+    await stale.waitFor();
+    const text = (await stale.textContent()) ?? '';
+    expect(text).toContain('Revision 2 was saved meanwhile');
+    expect(text).toContain('has a different thickness for Polyisocyanurate foam, PIR (32 kg/m³)');
+    expect(text).toContain('has a different thickness for Steel (7800 kg/m³)');
+    await stale.getByRole('button', { name: 'Save on top as revision 3' }).click();
+    await expect.poll(() => page.getByTestId('revision-label').textContent()).toBe('Revision 3');
+    expect(await page.getByTestId('unsaved').count()).toBe(0);
+
+    const heads = await db.select().from(revisions).where(eq(revisions.assemblyId, assembly.id));
+    const head = heads.sort((a, b) => b.number - a.number)[0];
+    expect(head.number).toBe(3);
+    expect(head.note).toBe('thicker outer sheet');
+    expect((head.model as typeof panel).layers[0].thickness).toBeCloseTo(0.0007, 12);
+    // nothing was lost: their revision is still there
+    expect(heads.find((r) => r.number === 2)?.note).toBe('core to 100 mm');
+
+    // after the save nothing is offered back on reload
+    await page.reload();
+    await page.getByTestId('layer-card').first().waitFor();
+    expect(await page.getByRole('button', { name: 'Restore them' }).count()).toBe(0);
+    // the browser logs the expected 409 answer as a failed resource; nothing else may fail
+    expect(errors.filter((e) => !e.includes('status of 409'))).toEqual([]);
+    await context.close();
   });
 });

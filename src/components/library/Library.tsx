@@ -91,7 +91,7 @@ export default function Library({ teamId, teamName, canEdit }: Props) {
           </span>
         ),
       }),
-      col.accessor('conductivity', { header: 'λ [W/(m·K)]', meta: { numeric: true }, cell: (c) => fixed(c.getValue(), c.getValue() < 1 ? 3 : 1) }),
+      col.accessor('conductivity', { header: 'λ [W/(m·K)]', meta: { numeric: true }, cell: (c) => fixed(c.getValue(), 3) }),
       col.accessor('density', { header: 'ρ [kg/m³]', meta: { numeric: true }, cell: (c) => fixed(c.getValue(), c.getValue() < 10 ? 1 : 0) }),
       col.accessor('specificHeat', { header: 'c [J/(kg·K)]', meta: { numeric: true }, cell: (c) => fixed(c.getValue(), 0) }),
       col.accessor('vapourResistanceFactor', { header: 'μ [–]', meta: { numeric: true }, cell: (c) => (c.getValue() >= 1e5 ? c.getValue().toExponential(0) : fixed(c.getValue(), 0)) }),

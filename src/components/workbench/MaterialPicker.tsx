@@ -202,7 +202,7 @@ export default function MaterialPicker({ teamId, places, onPick, onClose }: Prop
                             {m.name}
                             {m.teamId ? <span className="ml-2 rounded bg-paper px-1 text-xs text-ink-soft">team</span> : null}
                           </span>
-                          <span className="w-24 shrink-0 text-right text-xs tabular text-ink-soft">λ {fixed(m.conductivity, m.conductivity < 1 ? 3 : 1)}</span>
+                          <span className="w-24 shrink-0 text-right text-xs tabular text-ink-soft">λ {fixed(m.conductivity, 3)}</span>
                           <span className="w-20 shrink-0 text-right text-xs tabular text-ink-soft">ρ {fixed(m.density, 0)}</span>
                           <span className="w-20 shrink-0 text-right text-xs tabular text-ink-soft">c {fixed(m.specificHeat, 0)}</span>
                         </li>
