@@ -101,6 +101,10 @@ describe('check and share, in the browser', () => {
     await expect(guest.page.getByTestId('shared-u').textContent()).resolves.toContain(expectedU.toFixed(3));
     await expect(guest.page.getByTestId('shared-layers').textContent()).resolves.toContain('215.0');
     await expect(guest.page.getByTestId('caution').textContent()).resolves.toMatch(/qualified professional/);
+    // the playback runs the revision in the guest's browser, with nothing fetched from the team
+    await guest.page.getByTestId('shared-playback').scrollIntoViewIfNeeded();
+    await guest.page.getByTestId('run-state').waitFor({ timeout: 20_000 });
+    expect(guest.requests.filter((u) => u.includes('/api/'))).toEqual([]);
     const html = await guest.page.content();
     expect(html).not.toContain('Tomas Reyes');
     expect(html).not.toContain('Ines Varga');
