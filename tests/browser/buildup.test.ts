@@ -33,20 +33,31 @@ const ids = (page: Page) => page.getByTestId('layer-card').evaluateAll((els) => 
 const names = (page: Page) => page.getByTestId('layer-card').evaluateAll((els) => els.map((e) => e.getAttribute('data-name')));
 const figure = async (page: Page, id: string) => (await page.getByTestId(id).textContent())?.trim() ?? '';
 
-/** the time from a change made in the page to the next painted frame, ms */
-function timeToFrame(page: Page, action: string, arg: string): Promise<number> {
+/**
+ * a change made in the page, timed: `commit` until React has written it to the DOM (the stack's
+ * order, or the figures after an edit), `frame` until the next frame after that has been painted, ms
+ */
+function timed(page: Page, action: 'key' | 'input', arg: string): Promise<{ commit: number; frame: number }> {
   return page.evaluate(
     ([action, arg]) =>
-      new Promise<number>((resolve) => {
+      new Promise<{ commit: number; frame: number }>((resolve) => {
+        const watched = document.querySelector(action === 'key' ? '[data-testid="layer-stack"]' : '[data-testid="fig-resistance"]')!;
         const t0 = performance.now();
+        let commit = -1;
+        const observer = new MutationObserver(() => {
+          if (commit >= 0) return;
+          commit = performance.now() - t0;
+          observer.disconnect();
+          requestAnimationFrame(() => setTimeout(() => resolve({ commit, frame: performance.now() - t0 }), 0));
+        });
+        observer.observe(watched, { childList: true, subtree: true, characterData: true });
         if (action === 'key') {
-          document.activeElement!.dispatchEvent(new KeyboardEvent('keydown', { key: arg === 'Space' ? ' ' : arg, code: arg, bubbles: true, cancelable: true }));
+          document.activeElement!.dispatchEvent(new KeyboardEvent('keydown', { key: ' ', code: arg, bubbles: true, cancelable: true }));
         } else {
           const input = document.activeElement as HTMLInputElement;
           Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!.call(input, arg);
           input.dispatchEvent(new Event('input', { bubbles: true }));
         }
-        requestAnimationFrame(() => setTimeout(() => resolve(performance.now() - t0), 0));
       }),
     [action, arg] as const,
   );
@@ -156,8 +167,8 @@ describe('build-up pane', () => {
     for (let i = 0; i < 4; i++) await page.getByRole('button', { name: /^Duplicate / }).nth(i).click();
     expect(await page.getByTestId('layer-card').count()).toBe(10);
 
-    const reorder: number[] = [];
-    const edit: number[] = [];
+    const reorder: { commit: number; frame: number }[] = [];
+    const edit: { commit: number; frame: number }[] = [];
     for (let round = 0; round < 8; round++) {
       const card = round % 2 === 0 ? 0 : 1;
       await page.getByTestId('layer-card').nth(card).getByTestId('drag-handle').focus();
@@ -165,22 +176,27 @@ describe('build-up pane', () => {
       await page.keyboard.press('Space');
       await page.waitForTimeout(80);
       await page.keyboard.press(round % 2 === 0 ? 'ArrowDown' : 'ArrowUp');
-      await page.waitForTimeout(80);
-      reorder.push(await timeToFrame(page, 'key', 'Space'));
+      await page.waitForTimeout(150);
+      reorder.push(await timed(page, 'key', 'Space'));
       await expect.poll(() => ids(page)).not.toEqual(before);
     }
     const thickness = page.getByTestId('layer-card').nth(3).locator('input[data-field="thickness"]');
     await thickness.focus();
-    for (let round = 0; round < 10; round++) edit.push(await timeToFrame(page, 'input', String(140 + round)));
+    // the figure changes with each value (R of the layer), so each edit is seen committing
+    for (let round = 0; round < 10; round++) {
+      edit.push(await timed(page, 'input', String(140 + round)));
+      await page.waitForTimeout(150);
+    }
     const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-    // the figure for the report: time from the change to the next painted frame
-    console.log(
-      `[buildup timing] 10 layers: reorder median ${median(reorder).toFixed(1)} ms, max ${Math.max(...reorder).toFixed(1)} ms; ` +
-        `field edit median ${median(edit).toFixed(1)} ms, max ${Math.max(...edit).toFixed(1)} ms`,
-    );
+    const line = (xs: { commit: number; frame: number }[]) =>
+      `commit median ${median(xs.map((x) => x.commit)).toFixed(1)} ms (max ${Math.max(...xs.map((x) => x.commit)).toFixed(1)}), ` +
+      `next painted frame median ${median(xs.map((x) => x.frame)).toFixed(1)} ms (max ${Math.max(...xs.map((x) => x.frame)).toFixed(1)})`;
+    // the figures for the report
+    console.log(`[buildup timing] 10 layers, reorder by keyboard drop: ${line(reorder)}`);
+    console.log(`[buildup timing] 10 layers, thickness edit: ${line(edit)}`);
     // a generous sanity bound only (a loaded shared machine); the real measure is the logged one
-    expect(median(reorder)).toBeLessThan(200);
-    expect(median(edit)).toBeLessThan(200);
+    expect(median(reorder.map((x) => x.frame))).toBeLessThan(250);
+    expect(median(edit.map((x) => x.frame))).toBeLessThan(250);
     expect(await thickness.inputValue()).toBe('149');
     expect(errors).toEqual([]);
     await context.close();

@@ -18,7 +18,7 @@ const SHORT_LABELS: Record<Exclude<LayerField, 'name'>, string> = {
 };
 
 /** one input of a card: shows the typed text and its message while it is not valid */
-function FieldInput({ layer, field, readOnly, label, symbol, unit, wide = false }: { layer: DocLayer; field: LayerField; readOnly: boolean; label: string; symbol?: string; unit?: string; wide?: boolean }) {
+const FieldInput = memo(function FieldInput({ layer, field, readOnly, label, symbol, unit, wide = false }: { layer: DocLayer; field: LayerField; readOnly: boolean; label: string; symbol?: string; unit?: string; wide?: boolean }) {
   const key = draftKey(layer.id, field);
   const draft = useWorkbench((s) => s.drafts[key]);
   const editField = useWorkbench((s) => s.editField);
@@ -64,7 +64,7 @@ function FieldInput({ layer, field, readOnly, label, symbol, unit, wide = false 
       ) : null}
     </div>
   );
-}
+});
 
 export interface LayerCardProps {
   layer: DocLayer;
