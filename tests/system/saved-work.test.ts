@@ -240,6 +240,7 @@ describe('share links', () => {
     expect(actions.map((a) => a.action)).toEqual(['share_created', 'share_opened', 'share_opened', 'share_revoked']);
     const log = await (await call('GET', `/api/audit?teamId=${teamId}&q=share:${share.id}`, { userId: DEMO.admin })).json();
     expect(log.total).toBe(4);
+    expect(log.items[0].targetText).toBe('“for the architect”, Shared wall R1');
   });
 
   it('shows a clear page for an expired link and for one that never existed', async () => {

@@ -46,6 +46,7 @@ interface AuditRow {
   ip: string;
   success: boolean;
   createdAt: string;
+  targetText: string;
 }
 
 const ROLE_TEXT: Record<Role, string> = {
@@ -233,7 +234,7 @@ export default function TeamScreen({ teamId, myUserId, role }: { teamId: number;
     { id: 'createdAt', header: 'When', cell: ({ row }) => <span className="whitespace-nowrap">{formatWhen(row.original.createdAt)}</span> },
     { id: 'action', header: 'What', cell: ({ row }) => <span className={row.original.success ? '' : 'text-danger font-semibold'}>{ACTION_TEXT[row.original.action] ?? row.original.action}</span> },
     { id: 'actorName', header: 'Who', cell: ({ row }) => row.original.actorName ?? (row.original.action.startsWith('share_opened') ? 'guest' : '—') },
-    { id: 'target', header: 'On', cell: ({ row }) => row.original.target || '—' },
+    { id: 'target', header: 'On', cell: ({ row }) => row.original.targetText || '—' },
     { id: 'detail', header: 'Detail', enableSorting: false, cell: ({ row }) => detailText(row.original) || '—' },
     { id: 'ip', header: 'From', enableSorting: false, cell: ({ row }) => <span className="tabular text-ink-soft">{row.original.ip || '—'}</span> },
   ];

@@ -1,6 +1,6 @@
-import { and, count, desc, eq, like, or } from 'drizzle-orm';
+import { and, count, desc, eq, inArray, like, or } from 'drizzle-orm';
 import { db } from '../db';
-import { auditLog, users } from '../db/schema';
+import { assemblies, auditLog, revisions, shareLinks, users } from '../db/schema';
 import type { ListQuery } from '../../schemas/api';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 
@@ -13,6 +13,37 @@ export interface AuditRow {
   ip: string;
   success: boolean;
   createdAt: Date;
+  /** the target in words: a member's name, a share link's label and assembly */
+  targetText: string;
+}
+
+const PERSON_ACTIONS = new Set(['role_changed', 'member_removed', 'member_left']);
+
+/** names for the raw targets (user ids, share:<id>, revision:<id>) of one page */
+async function describeTargets(rows: Omit<AuditRow, 'targetText'>[]): Promise<AuditRow[]> {
+  const userIds = [...new Set(rows.filter((r) => PERSON_ACTIONS.has(r.action)).map((r) => r.target))];
+  const shareIds = [...new Set(rows.map((r) => /^share:(\d+)$/.exec(r.target)?.[1]).filter(Boolean).map(Number))];
+  const revisionIds = [...new Set(rows.map((r) => /^revision:(\d+)$/.exec(r.target)?.[1]).filter(Boolean).map(Number))];
+  const names = new Map<string, string>();
+  if (userIds.length) for (const u of await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, userIds))) names.set(u.id, u.name);
+  if (shareIds.length) {
+    const shares = await db
+      .select({ id: shareLinks.id, label: shareLinks.label, number: revisions.number, assembly: assemblies.name })
+      .from(shareLinks)
+      .innerJoin(revisions, eq(revisions.id, shareLinks.revisionId))
+      .innerJoin(assemblies, eq(assemblies.id, revisions.assemblyId))
+      .where(inArray(shareLinks.id, shareIds));
+    for (const sh of shares) names.set(`share:${sh.id}`, `${sh.label ? `“${sh.label}”, ` : ''}${sh.assembly} R${sh.number}`);
+  }
+  if (revisionIds.length) {
+    const revs = await db
+      .select({ id: revisions.id, number: revisions.number, assembly: assemblies.name })
+      .from(revisions)
+      .innerJoin(assemblies, eq(assemblies.id, revisions.assemblyId))
+      .where(inArray(revisions.id, revisionIds));
+    for (const r of revs) names.set(`revision:${r.id}`, `${r.assembly} R${r.number}`);
+  }
+  return rows.map((r) => ({ ...r, targetText: names.get(r.target) ?? r.target }));
 }
 
 /**
@@ -46,5 +77,5 @@ export async function listAudit(teamId: number, memberEmails: string[], q: ListQ
     .limit(q.pageSize)
     .offset(offsetOf(q));
   const [{ n }] = await db.select({ n: count() }).from(auditLog).leftJoin(users, eq(users.id, auditLog.actorId)).where(where);
-  return { items, page: q.page, pageSize: q.pageSize, total: n };
+  return { items: await describeTargets(items), page: q.page, pageSize: q.pageSize, total: n };
 }
