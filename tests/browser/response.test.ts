@@ -54,6 +54,7 @@ describe('Response pane', () => {
     // the run is of the saved revision: it can be kept with it (the runs API of the revision)
     await pane.getByRole('button', { name: /Keep this run with revision \d+/ }).click();
     await expect(pane.getByTestId('run-saved').textContent()).resolves.toMatch(/Kept with revision \d+ \(run \d+\)/);
+    await expect.poll(() => pane.getByTestId('kept-runs').locator('summary').textContent()).toMatch(/^\d+ runs? kept with revision \d+$/);
     const decrement = await pane.locator('[data-figure="decrementFactor"] [data-cell="simulated"]').textContent();
     const analytic = await pane.locator('[data-figure="decrementFactor"] [data-cell="analytic"]').textContent();
     // after four warm-up days the fitted decrement factor agrees with ISO 13786 to the shown decimals, give or take one
@@ -117,7 +118,13 @@ describe('Response pane', () => {
     await expect(exposure.getByTestId('csv-ok').textContent()).resolves.toMatch(/72 hours read/);
     await exposure.getByTestId('csv-preview-chart').locator('canvas').first().waitFor();
     await exposure.getByRole('button', { name: 'Keep for the team' }).click();
-    await expect(exposure.getByTestId('upload-picker').locator('select').first().locator('option:checked').textContent()).resolves.toMatch(/harrow-lane-july — 72 h/);
+    // the import closes once the upload is kept (a refusal would stay open with its message)
+    await exposure.getByTestId('csv-import').waitFor({ state: 'detached', timeout: 15_000 }).catch(async (e) => {
+      throw new Error(`the upload was not kept: ${await exposure.getByTestId('csv-import').textContent()} (${e})`);
+    });
+    await expect
+      .poll(() => exposure.getByTestId('upload-picker').locator('select').first().locator('option:checked').textContent({ timeout: 1000 }).catch(() => ''), { timeout: 15_000 })
+      .toMatch(/harrow-lane-july — 72 h/);
     // the run follows by itself and says the outdoor air is an uploaded series
     await expect.poll(() => page.getByTestId('response-pane').textContent(), { timeout: 15_000 }).toMatch(/uploaded series/);
     await screenshot(page, 'exposure-upload');

@@ -10,7 +10,7 @@ import { dayClock, summaryOf } from '../../lib/workbench/figures';
 import { seriesCsv } from '../../lib/workbench/exportCsv';
 import type { MaterialClass, UploadedSeries, WorkbenchDocument } from '../../lib/schemas/workbench';
 import { drawProfile, profileRange, profileStyle, type ProfileStyle } from './profileDraw';
-import FiguresTable from './FiguresTable';
+import FiguresTable, { fixed } from './FiguresTable';
 
 /** runs of up to this many days (warm-up included) re-run by themselves after an edit */
 export const AUTO_RUN_DAYS = 7;
@@ -27,6 +27,14 @@ interface Shown {
   finishedAt: number;
   /** ms from the request to the figures */
   wallMs: number;
+}
+
+/** a run kept with the revision, as GET /api/revisions/:id/runs lists it */
+interface KeptRun {
+  id: number;
+  summary: Record<string, number | string | null>;
+  createdByName: string | null;
+  createdAt: string;
 }
 
 type Saved = { state: 'none' } | { state: 'saving' } | { state: 'saved'; id: number; revision: number } | { state: 'error'; message: string };
@@ -171,6 +179,23 @@ export default function ResponsePane() {
     }
   };
 
+  // the runs kept with the revision (newest first), refreshed after keeping one
+  const [keptRuns, setKeptRuns] = useState<KeptRun[] | null>(null);
+  useEffect(() => {
+    if (!base) {
+      setKeptRuns(null);
+      return;
+    }
+    let stop = false;
+    fetch(`/api/revisions/${base.id}/runs`)
+      .then((r) => (r.ok ? r.json() : null))
+      .then((body: { items?: KeptRun[] } | null) => !stop && setKeptRuns(body?.items ?? null))
+      .catch(() => !stop && setKeptRuns(null));
+    return () => {
+      stop = true;
+    };
+  }, [base?.id, saved.state === 'saved' ? saved.id : 0]);
+
   const runIsOfRevision = !!base && !dirty && !!shown && shown.doc === useWorkbench.getState().savedDoc;
 
   return (
@@ -241,6 +266,35 @@ export default function ResponsePane() {
             {saved.state === 'saved' ? <span className="text-ok" data-testid="run-saved">Kept with revision {saved.revision} (run {saved.id}).</span> : null}
             {saved.state === 'error' ? <span className="text-danger" role="alert">{saved.message}</span> : null}
           </div>
+          {keptRuns && keptRuns.length > 0 ? (
+            <details className="text-xs" data-testid="kept-runs">
+              <summary className="cursor-pointer text-ink-soft">
+                {keptRuns.length} {keptRuns.length === 1 ? 'run' : 'runs'} kept with revision {base?.number}
+              </summary>
+              <table className="mt-1 tabular">
+                <thead>
+                  <tr className="text-ink-faint">
+                    <th className="text-left font-normal pr-3">Kept</th>
+                    <th className="text-left font-normal pr-3">By</th>
+                    <th className="text-right font-normal pr-3">Decrement factor</th>
+                    <th className="text-right font-normal pr-3">Time lag (h)</th>
+                    <th className="text-right font-normal">Peak inside flux (W/m²)</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {keptRuns.map((r) => (
+                    <tr key={r.id}>
+                      <td className="pr-3">{new Date(r.createdAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}</td>
+                      <td className="pr-3">{r.createdByName ?? '–'}</td>
+                      <td className="text-right pr-3">{fixed(r.summary.decrementFactorSimulated as number | null, 3)}</td>
+                      <td className="text-right pr-3">{fixed(r.summary.timeLagSimulatedH as number | null, 2)}</td>
+                      <td className="text-right">{fixed(r.summary.peakInsideFluxWm2 as number | null, 2)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </details>
+          ) : null}
           <Playback shown={shown} />
           <FiguresTable run={shown.run} exposure={shown.doc.exposure} />
           <div className="flex flex-wrap gap-2">
