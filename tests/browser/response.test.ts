@@ -97,6 +97,31 @@ describe('Response pane', () => {
     await context.close();
   });
 
+  it('cancels a run of three thousand days from its progress bar, keeps the last figures, and runs again in a fresh worker', async () => {
+    const { page, context, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    await page.goto(`/assemblies/${assemblyId}`);
+    const pane = page.getByTestId('response-pane');
+    await pane.getByTestId('figures').waitFor();
+    const exposure = page.getByTestId('exposure-pane');
+    await exposure.getByLabel('Days to report').fill('3000');
+    await exposure.getByLabel('Time step').selectOption('60');
+    await expect(pane.textContent()).resolves.toMatch(/press Run/);
+    await pane.getByTestId('run').click();
+    const bar = pane.getByRole('progressbar', { name: 'Run progress' });
+    await expect.poll(() => bar.getAttribute('aria-valuenow').then(Number), { timeout: 20_000 }).toBeGreaterThan(0);
+    await pane.getByRole('button', { name: 'Cancel' }).click();
+    await pane.getByTestId('run-progress').waitFor({ state: 'detached', timeout: 2000 });
+    await expect(pane.textContent()).resolves.toMatch(/The settings changed since this run: press Run\./);
+    await pane.getByTestId('figures').waitFor();
+    // back to a short run: it runs by itself again
+    const before = await pane.getByTestId('run-state').textContent();
+    await exposure.getByLabel('Days to report').fill('2');
+    await expect.poll(() => pane.getByTestId('run-state').textContent()).not.toBe(before);
+    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run 6 days');
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('imports an hourly CSV: names the one bad line, then keeps a good file for the team and runs it', async () => {
     const { page, context, errors } = await openPage(browser, { userId: 'demo-engineer' });
     await page.goto(`/assemblies/${assemblyId}`);
