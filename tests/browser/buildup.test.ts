@@ -35,29 +35,43 @@ const figure = async (page: Page, id: string) => (await page.getByTestId(id).tex
 
 /**
  * a change made in the page, timed: `commit` until React has written it to the DOM (the stack's
- * order, or the figures after an edit), `frame` until the next frame after that has been painted, ms
+ * order, or the figures after an edit), and `longestFrame`, the longest interval between painted
+ * frames from just before the change until 300 ms after it (16.7 ms at 60 Hz when no frame is missed), ms
  */
-function timed(page: Page, action: 'key' | 'input', arg: string): Promise<{ commit: number; frame: number }> {
+function timed(page: Page, action: 'key' | 'input', arg: string): Promise<{ commit: number; longestFrame: number }> {
   return page.evaluate(
     ([action, arg]) =>
-      new Promise<{ commit: number; frame: number }>((resolve) => {
+      new Promise<{ commit: number; longestFrame: number }>((resolve) => {
         const watched = document.querySelector(action === 'key' ? '[data-testid="layer-stack"]' : '[data-testid="fig-resistance"]')!;
-        const t0 = performance.now();
+        const frames: number[] = [];
+        let t0 = 0;
         let commit = -1;
         const observer = new MutationObserver(() => {
           if (commit >= 0) return;
           commit = performance.now() - t0;
           observer.disconnect();
-          requestAnimationFrame(() => setTimeout(() => resolve({ commit, frame: performance.now() - t0 }), 0));
         });
-        observer.observe(watched, { childList: true, subtree: true, characterData: true });
-        if (action === 'key') {
-          document.activeElement!.dispatchEvent(new KeyboardEvent('keydown', { key: ' ', code: arg, bubbles: true, cancelable: true }));
-        } else {
-          const input = document.activeElement as HTMLInputElement;
-          Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!.call(input, arg);
-          input.dispatchEvent(new Event('input', { bubbles: true }));
-        }
+        const tick = (now: number) => {
+          frames.push(now);
+          if (frames.length === 2) {
+            // change right after a frame, so the work has the whole next frame
+            observer.observe(watched, { childList: true, subtree: true, characterData: true });
+            t0 = performance.now();
+            if (action === 'key') {
+              document.activeElement!.dispatchEvent(new KeyboardEvent('keydown', { key: ' ', code: arg, bubbles: true, cancelable: true }));
+            } else {
+              const input = document.activeElement as HTMLInputElement;
+              Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!.call(input, arg);
+              input.dispatchEvent(new Event('input', { bubbles: true }));
+            }
+          }
+          if (frames.length > 2 && now - frames[1] > 300) {
+            let longest = 0;
+            for (let i = 2; i < frames.length; i++) longest = Math.max(longest, frames[i] - frames[i - 1]);
+            resolve({ commit, longestFrame: longest });
+          } else requestAnimationFrame(tick);
+        };
+        requestAnimationFrame(tick);
       }),
     [action, arg] as const,
   );
@@ -167,8 +181,8 @@ describe('build-up pane', () => {
     for (let i = 0; i < 4; i++) await page.getByRole('button', { name: /^Duplicate / }).nth(i).click();
     expect(await page.getByTestId('layer-card').count()).toBe(10);
 
-    const reorder: { commit: number; frame: number }[] = [];
-    const edit: { commit: number; frame: number }[] = [];
+    const reorder: { commit: number; longestFrame: number }[] = [];
+    const edit: { commit: number; longestFrame: number }[] = [];
     for (let round = 0; round < 8; round++) {
       const card = round % 2 === 0 ? 0 : 1;
       await page.getByTestId('layer-card').nth(card).getByTestId('drag-handle').focus();
@@ -188,15 +202,15 @@ describe('build-up pane', () => {
       await page.waitForTimeout(150);
     }
     const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-    const line = (xs: { commit: number; frame: number }[]) =>
+    const line = (xs: { commit: number; longestFrame: number }[]) =>
       `commit median ${median(xs.map((x) => x.commit)).toFixed(1)} ms (max ${Math.max(...xs.map((x) => x.commit)).toFixed(1)}), ` +
-      `next painted frame median ${median(xs.map((x) => x.frame)).toFixed(1)} ms (max ${Math.max(...xs.map((x) => x.frame)).toFixed(1)})`;
+      `longest frame around it median ${median(xs.map((x) => x.longestFrame)).toFixed(1)} ms (max ${Math.max(...xs.map((x) => x.longestFrame)).toFixed(1)})`;
     // the figures for the report
     console.log(`[buildup timing] 10 layers, reorder by keyboard drop: ${line(reorder)}`);
     console.log(`[buildup timing] 10 layers, thickness edit: ${line(edit)}`);
     // a generous sanity bound only (a loaded shared machine); the real measure is the logged one
-    expect(median(reorder.map((x) => x.frame))).toBeLessThan(250);
-    expect(median(edit.map((x) => x.frame))).toBeLessThan(250);
+    expect(median(reorder.map((x) => x.longestFrame))).toBeLessThan(250);
+    expect(median(edit.map((x) => x.longestFrame))).toBeLessThan(250);
     expect(await thickness.inputValue()).toBe('149');
     expect(errors).toEqual([]);
     await context.close();

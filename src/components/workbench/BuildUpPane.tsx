@@ -1,4 +1,5 @@
 import { useCallback, useMemo, useState } from 'react';
+import { flushSync } from 'react-dom';
 import {
   DndContext,
   KeyboardSensor,
@@ -64,9 +65,13 @@ export default function BuildUpPane({ readOnly }: { readOnly: boolean }) {
     ({ active, over }: DragEndEvent) => {
       if (!over || active.id === over.id) return;
       const current = useWorkbench.getState().doc.layers;
-      moveLayer(
-        current.findIndex((l) => l.id === active.id),
-        current.findIndex((l) => l.id === over.id),
+      // dnd-kit calls this outside a React event, so the render would wait for a later task
+      // (often after the next frame); render the new order now, inside this key or pointer event
+      flushSync(() =>
+        moveLayer(
+          current.findIndex((l) => l.id === active.id),
+          current.findIndex((l) => l.id === over.id),
+        ),
       );
     },
     [moveLayer],
