@@ -31,12 +31,18 @@ export async function invite(teamId: number, actor: { id: string; name: string }
   const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_MS);
   const [row] = await db.insert(invitations).values({ teamId, email, role, tokenHash: hash, invitedBy: actor.id, expiresAt }).$returningId();
   const url = `${PUBLIC_BASE_URL}/invite/${token}`;
-  await sendMail({
-    to: email,
-    subject: `${actor.name} invited you to ${team?.name ?? 'a team'} on Wallpulse`,
-    purpose: 'invite',
-    text: `Hello,\n\n${actor.name} invited you to join ${team?.name ?? 'their team'} on Wallpulse as ${role === 'admin' ? 'an admin' : `a ${role}`}.\n\nOpen the link below to accept. It expires in 7 days.\n\n${url}\n\nIf you did not expect this, ignore this message.\n`,
-  });
+  try {
+    await sendMail({
+      to: email,
+      subject: `${actor.name} invited you to ${team?.name ?? 'a team'} on Wallpulse`,
+      purpose: 'invite',
+      text: `Hello,\n\n${actor.name} invited you to join ${team?.name ?? 'their team'} on Wallpulse as ${role === 'admin' ? 'an admin' : `a ${role}`}.\n\nOpen the link below to accept. It expires in 7 days.\n\n${url}\n\nIf you did not expect this, ignore this message.\n`,
+    });
+  } catch {
+    // an invitation nobody received must not stay open
+    await db.update(invitations).set({ revokedAt: new Date() }).where(eq(invitations.id, row.id));
+    return fail(503, 'mail_failed', `The invitation to ${email} could not be sent: the mail server did not answer. Try again in a minute.`);
+  }
   await audit({ action: 'invitation_sent', teamId, actorId: actor.id, target: email, detail: { role, invitationId: row.id }, ip });
   return { ok: true, id: row.id };
 }

@@ -7,6 +7,10 @@ export const POST: APIRoute = async ({ locals }) => {
   const user = locals.user;
   if (!user) return apiError(401, 'unauthenticated', 'Sign in first.');
   if (user.emailVerified) return apiError(409, 'already_verified', 'Your address is confirmed already.');
-  await sendVerification(user);
+  try {
+    await sendVerification(user);
+  } catch {
+    return apiError(503, 'mail_failed', 'The message could not be sent: the mail server did not answer. Try again in a minute.');
+  }
   return json({ sent: true }, 202);
 };

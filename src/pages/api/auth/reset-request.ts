@@ -1,5 +1,5 @@
 import type { APIRoute } from 'astro';
-import { readJson } from '../../../lib/server/http';
+import { apiError, readJson } from '../../../lib/server/http';
 import { resetRequestBody } from '../../../lib/schemas/api';
 import { requestPasswordReset } from '../../../lib/server/auth/accounts';
 import { json } from '../../../lib/server/services/respond';
@@ -8,6 +8,10 @@ import { json } from '../../../lib/server/services/respond';
 export const POST: APIRoute = async ({ request }) => {
   const body = await readJson(request, resetRequestBody);
   if ('response' in body) return body.response;
-  await requestPasswordReset(body.data.email);
+  try {
+    await requestPasswordReset(body.data.email);
+  } catch {
+    return apiError(503, 'mail_failed', 'The message could not be sent: the mail server did not answer. Try again in a minute.');
+  }
   return json({ sent: true, message: 'If an account uses this address, a reset link is on its way. It lasts 1 hour.' }, 202);
 };

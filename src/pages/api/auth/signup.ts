@@ -11,7 +11,13 @@ export const POST: APIRoute = async ({ request, cookies }) => {
   if ('response' in body) return body.response;
   const made = await createUser(body.data);
   if (!made.ok) return failure(made);
-  await sendVerification(made.value);
   await startSession(cookies, made.value.id);
-  return json({ user: { id: made.value.id, name: made.value.name, email: made.value.email, emailVerified: false } }, 201);
+  let verificationSent = true;
+  try {
+    await sendVerification(made.value);
+  } catch {
+    // the account stands; the link can be asked for again (POST /api/auth/resend-verification)
+    verificationSent = false;
+  }
+  return json({ user: { id: made.value.id, name: made.value.name, email: made.value.email, emailVerified: false }, verificationSent }, 201);
 };
