@@ -108,7 +108,7 @@ describe('build-up pane', () => {
     }
     await page.mouse.up();
     await expect.poll(() => names(page)).toEqual([RENDER, BRICK, WOOL, PLASTER]);
-    // series resistances do not depend on their order (ISO 6946 §6.7.1); the periodic response does (ISO 13786)
+    // series resistances do not depend on their order (ISO 6946: the total resistance is the sum of the layer resistances); the periodic response does (ISO 13786)
     expect(await figure(page, 'fig-u')).toBe(u0);
     const lag1 = await figure(page, 'fig-lag');
     expect(lag1).not.toBe(lag0);

@@ -68,7 +68,7 @@ function LiveFigures({ layers, exposure, figures }: Props) {
           testId="fig-u"
           value={fixed(figures.steady.uValue, 3)}
           unit="W/m²K"
-          hint="U = 1 / R for plane homogeneous layers (ISO 6946 §6.7.1); no corrections for fixings, air gaps or thermal bridges."
+          hint="U = 1 / R for plane homogeneous layers (ISO 6946, total resistance of homogeneous layers); no corrections for fixings, air gaps or thermal bridges."
         />
         <Figure
           label="Areal heat capacity"

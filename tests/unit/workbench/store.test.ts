@@ -68,7 +68,7 @@ describe('moveLayer', () => {
   });
 
   it('keeps the U-value and changes the time lag when the insulation goes outside', () => {
-    // the steady resistance of series layers does not depend on their order (ISO 6946 §6.7.1, sum of layer resistances)
+    // the steady resistance of series layers does not depend on their order (ISO 6946: the total resistance of homogeneous layers is the sum of their resistances)
     const before = selectFigures(s())!;
     s().moveLayer(1, 0);
     const after = selectFigures(s())!;
