@@ -47,7 +47,7 @@ describe('jobs', () => {
 describe('assemblies', () => {
   it('starts a new assembly at revision 1 with the ISO 6946 inside surface resistance of its element', async () => {
     const jobId = await makeJob(teamId);
-    // ISO 6946 Table 7: R_si 0.13 (horizontal), 0.10 (upward), 0.17 (downward) m²K/W; R_se 0.04
+    // ISO 6946 conventional surface resistances: R_si 0.13 (horizontal), 0.10 (upward), 0.17 (downward) m²K/W; R_se 0.04
     const expected = { wall: [0.13, 'horizontal'], roof: [0.1, 'upward'], floor: [0.17, 'downward'] } as const;
     for (const element of ['wall', 'roof', 'floor'] as const) {
       const res = await call('POST', `/api/jobs/${jobId}/assemblies`, { userId: DEMO.engineer, body: { name: `${element} ${uid()}`, element } });

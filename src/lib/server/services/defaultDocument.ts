@@ -13,7 +13,7 @@ const layer = (id: string, l: Omit<DocLayer, 'id' | 'materialRef' | 'vapourResis
 });
 
 // typical values to be replaced by product data; sources beside each (values from memory)
-const SRC_10456 = 'Typical design value, ISO 10456 Table 3 (from memory); replace with product data';
+const SRC_10456 = 'Typical design value in the range ISO 10456 tabulates (from memory); replace with product data';
 const SRC_GUIDE = 'Typical value, common practice for the material (from memory); replace with product data';
 
 const LAYERS: Record<Element, () => DocLayer[]> = {
@@ -39,7 +39,7 @@ const LAYERS: Record<Element, () => DocLayer[]> = {
   ],
 };
 
-/** ISO 6946 Table 7: wall horizontal 0.13, roof (heat flow upward) 0.10, floor (downward) 0.17 m²K/W */
+/** ISO 6946 conventional surface resistances: wall horizontal 0.13, roof (heat flow upward) 0.10, floor (downward) 0.17 m²K/W */
 const DIRECTION = { wall: 'horizontal', roof: 'upward', floor: 'downward' } as const;
 
 export function defaultDocument(element: Element): WorkbenchDocument {
