@@ -25,7 +25,7 @@ export interface BuiltinMaterial {
 const ISO10456 = 'ISO 10456:2007 Table 3 (design thermal values of building materials), from memory';
 const ISO10456_DRY = 'ISO 10456:2007 Table 3 (design values), λ and ρ from memory; c and μ from the same table';
 const EN1745 = 'EN 1745:2012 Annex A (thermal values of masonry at the given gross dry density), from memory';
-const CIBSE = 'CIBSE Guide A (2015) Table 3.47 (thermal properties of building materials), from memory';
+const CIBSE = 'CIBSE Guide A (2015) chapter 3, table of thermal properties of building materials (table number not checked), from memory';
 const ASHRAE = 'ASHRAE Handbook—Fundamentals (2017) ch. 26 Table 1 (building and insulating materials), from memory';
 const EN13162 = 'typical declared λ of factory-made mineral wool to EN 13162; c and μ from ISO 10456:2007 Table 4, from memory';
 const FOAM = (standard: string) => `typical declared λ of ${standard} boards; c and μ from ISO 10456:2007 Table 4, from memory`;
