@@ -197,10 +197,20 @@ export function engineBench(): BenchRow[] {
   }
   const cellSlope = logSlope(sizes.slice(2), times.slice(2));
   rows.push({ group: 'growth', name: 'runtime ∝ cells^p (200…2000 cells)', value: cellSlope, unit: 'p', target: '0.8 ≤ p ≤ 1.2', met: cellSlope >= 0.8 && cellSlope <= 1.2 });
-  const stepCounts = [10000, 20000, 40000, 80000];
-  const stepTimes = stepCounts.map((s) => best(3, () => simulate(throughputModel(300, s * 300), { storeProfiles: false })));
+  // steps: a warm-up run of the same model first, then the best of 5 for each count, the repeats taken
+  // round-robin over the counts so a burst of load on the machine hits every count alike; the smallest
+  // count is large enough (2e4 steps) that the fixed cost of meshing and factorising does not flatten the slope
+  const stepCounts = [20000, 40000, 80000, 160000];
+  const stepModel = (s: number) => throughputModel(300, s * 300);
+  simulate(stepModel(stepCounts[0]), { storeProfiles: false });
+  const stepTimes = stepCounts.map(() => Infinity);
+  for (let rep = 0; rep < 5; rep++) {
+    stepCounts.forEach((s, i) => {
+      stepTimes[i] = Math.min(stepTimes[i], best(1, () => simulate(stepModel(s), { storeProfiles: false })));
+    });
+  }
   const stepSlope = logSlope(stepCounts, stepTimes);
-  rows.push({ group: 'growth', name: 'runtime ∝ steps^p (300 cells, 1e4…8e4 steps)', value: stepSlope, unit: 'p', target: '0.8 ≤ p ≤ 1.2', met: stepSlope >= 0.8 && stepSlope <= 1.2 });
+  rows.push({ group: 'growth', name: 'runtime ∝ steps^p (300 cells, 2e4…1.6e5 steps, best of 5)', value: stepSlope, unit: 'p', target: '0.8 ≤ p ≤ 1.2', met: stepSlope >= 0.8 && stepSlope <= 1.2 });
 
   // 2. a year of hourly weather at 300 s steps, ~300 cells
   const year = yearModel(0.00125);
