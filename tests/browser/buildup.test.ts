@@ -1,21 +1,12 @@
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, it, expect } from 'vitest';
+import type { Page } from 'playwright-core';
 import { and, eq } from 'drizzle-orm';
-import { baseUrl, launch, openPage, outsideRequests, screenshot } from '../support/browser';
-import { closeTestDb, sessionFor, SESSION_COOKIE, testDb } from '../support/db';
+import { baseUrl, useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
+import { sessionFor, SESSION_COOKIE, testDb } from '../support/db';
 import { assemblies, jobs, memberships, revisions, teams, users } from '../../src/lib/server/db/schema';
 import { DEMO_ASSEMBLIES } from '../../src/lib/server/seed/demoJob';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launch());
-});
-afterAll(async () => {
-  await close();
-  await closeTestDb();
-});
+const browser = useBrowser();
 
 /** the id of a demo assembly of the Harrow Lane job, by its name */
 async function demoAssembly(name: string): Promise<number> {
@@ -85,7 +76,7 @@ const PLASTER = 'Dense gypsum plaster (1300 kg/m³)';
 describe('build-up pane', () => {
   it('reorders by mouse and keyboard with the U-value unchanged and the time lag moving, adds from the library, names a bad field, and undoes it all', async () => {
     const id = await demoAssembly('West wall, brick with external insulation');
-    const { page, context, requests, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    const { page, context, requests, errors } = await openPage(browser(), { userId: 'demo-engineer' });
     await page.goto(`/assemblies/${id}`);
     await page.getByTestId('layer-card').first().waitFor();
     expect(await names(page)).toEqual([RENDER, WOOL, BRICK, PLASTER]);
@@ -175,7 +166,7 @@ describe('build-up pane', () => {
 
   it('keeps reorders and field edits of ten layers within a frame or two (measured, reported by the run)', async () => {
     const id = await demoAssembly('Stair tower, timber frame infill');
-    const { page, context, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    const { page, context, errors } = await openPage(browser(), { userId: 'demo-engineer' });
     await page.goto(`/assemblies/${id}`);
     await page.getByTestId('layer-card').first().waitFor();
     for (let i = 0; i < 4; i++) await page.getByRole('button', { name: /^Duplicate / }).nth(i).click();
@@ -218,7 +209,7 @@ describe('build-up pane', () => {
 
   it('shows a signed-out visitor the sign-in page and another team’s member a 404', async () => {
     const id = await demoAssembly('Plant room, metal sandwich panel');
-    const { page, context } = await openPage(browser);
+    const { page, context } = await openPage(browser());
     const res = await page.goto(`/assemblies/${id}`);
     expect(new URL(page.url()).pathname).toBe('/signin');
     expect(new URL(page.url()).searchParams.get('next')).toBe(`/assemblies/${id}`);
@@ -256,7 +247,7 @@ describe('saving the build-up', () => {
     const panel = DEMO_ASSEMBLIES.find((a) => a.name.startsWith('Plant room'))!.doc;
     const [rev1] = await db.insert(revisions).values({ assemblyId: assembly.id, number: 1, model: panel, note: 'first', authorId: people[0] }).$returningId();
 
-    const { page, context, errors } = await openPage(browser, { userId: people[0] });
+    const { page, context, errors } = await openPage(browser(), { userId: people[0] });
     await page.goto(`/assemblies/${assembly.id}`);
     await page.getByTestId('layer-card').first().waitFor();
     const outerSteel = page.getByTestId('layer-card').nth(0).locator('input[data-field="thickness"]');

@@ -1,22 +1,11 @@
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launch, openPage, outsideRequests, screenshot, baseUrl } from '../support/browser';
-import { closeTestDb } from '../support/db';
+import { describe, it, expect } from 'vitest';
+import { useBrowser, openPage, outsideRequests, screenshot, baseUrl } from '../support/browser';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launch());
-});
-afterAll(async () => {
-  await close();
-  await closeTestDb();
-});
+const browser = useBrowser();
 
 describe('home page', () => {
   it('says what Wallpulse does, carries the caution, and loads nothing from outside 127.0.0.1', async () => {
-    const { page, requests, errors, context } = await openPage(browser);
+    const { page, requests, errors, context } = await openPage(browser());
     const res = await page.goto('/');
     expect(res?.status()).toBe(200);
     await expect(page.locator('h1').textContent()).resolves.toMatch(/wall or roof/i);
@@ -29,7 +18,7 @@ describe('home page', () => {
   });
 
   it('renders its text in the bundled Source Sans 3, served by the app itself', async () => {
-    const { page, requests, context } = await openPage(browser);
+    const { page, requests, context } = await openPage(browser());
     await page.goto('/');
     await page.evaluate(() => document.fonts.ready);
     const loaded = await page.evaluate(() => document.fonts.check('16px "Source Sans 3"'));

@@ -1,26 +1,15 @@
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, it, expect } from 'vitest';
 import { writeFileSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { launch, openPage, outsideRequests, screenshot } from '../support/browser';
-import { closeTestDb } from '../support/db';
+import { useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launch());
-});
-afterAll(async () => {
-  await close();
-  await closeTestDb();
-});
+const browser = useBrowser();
 
 describe('Library screen', () => {
   it('sorts and filters the table, adds a team material through a checked form, and previews a CSV with line-numbered problems', async () => {
     const run = Date.now().toString(36);
-    const { page, context, requests, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    const { page, context, requests, errors } = await openPage(browser(), { userId: 'demo-engineer' });
     await page.goto('/library');
     const rows = page.getByTestId('material-row');
     await rows.first().waitFor();
@@ -79,7 +68,7 @@ describe('Library screen', () => {
   });
 
   it('shows a checker the table without the editing controls', async () => {
-    const { page, context } = await openPage(browser, { userId: 'demo-checker' });
+    const { page, context } = await openPage(browser(), { userId: 'demo-checker' });
     await page.goto('/library');
     await page.getByTestId('material-row').first().waitFor();
     expect(await page.getByTestId('new-material').count()).toBe(0);

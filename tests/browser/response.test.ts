@@ -1,24 +1,18 @@
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { describe, it, expect, beforeAll } from 'vitest';
 import { readFileSync } from 'node:fs';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import Papa from 'papaparse';
-import { launch, openPage, outsideRequests, screenshot } from '../support/browser';
-import { closeTestDb, testDb, eq } from '../support/db';
+import { useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
+import { testDb, eq } from '../support/db';
 import { assemblies } from '../../src/lib/server/db/schema';
 
-let browser: Browser;
-let close: () => Promise<void>;
+const browser = useBrowser();
 let assemblyId: number;
 
 beforeAll(async () => {
-  ({ browser, close } = await launch());
   const rows = await testDb().select({ id: assemblies.id }).from(assemblies).where(eq(assemblies.name, 'West wall, brick with external insulation')).limit(1);
   if (!rows[0]) throw new Error('the demo assembly is missing from the seed');
   assemblyId = rows[0].id;
-});
-afterAll(async () => {
-  await close();
-  await closeTestDb();
 });
 
 /** records every main-thread task over 50 ms (the Long Tasks API) from the first script on */
@@ -37,7 +31,7 @@ const profilePixels = (page: Page) => page.getByTestId('profile-canvas').evaluat
 
 describe('Response pane', () => {
   it('runs three days in the worker without blocking the page, plays the profile, and scrubs to the CSV export value at 15:00', async () => {
-    const { page, context, requests, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    const { page, context, requests, errors } = await openPage(browser(), { userId: 'demo-engineer' });
     await watchLongTasks(page);
     await page.goto(`/assemblies/${assemblyId}`);
     const pane = page.getByTestId('response-pane');
@@ -98,7 +92,7 @@ describe('Response pane', () => {
   });
 
   it('cancels a run of three thousand days from its progress bar, keeps the last figures, and runs again in a fresh worker', async () => {
-    const { page, context, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    const { page, context, errors } = await openPage(browser(), { userId: 'demo-engineer' });
     await page.goto(`/assemblies/${assemblyId}`);
     const pane = page.getByTestId('response-pane');
     await pane.getByTestId('figures').waitFor();
@@ -123,7 +117,7 @@ describe('Response pane', () => {
   });
 
   it('imports an hourly CSV: names the one bad line, then keeps a good file for the team and runs it', async () => {
-    const { page, context, errors } = await openPage(browser, { userId: 'demo-engineer' });
+    const { page, context, errors } = await openPage(browser(), { userId: 'demo-engineer' });
     await page.goto(`/assemblies/${assemblyId}`);
     await page.getByTestId('response-pane').getByTestId('figures').waitFor();
     const exposure = page.getByTestId('exposure-pane');
@@ -160,7 +154,7 @@ describe('Response pane', () => {
 
 describe('Report page', () => {
   it('prints the build-up, the exposure, the analytic and simulated figures, the assumptions and the cautions', async () => {
-    const { page, context, errors } = await openPage(browser, { userId: 'demo-checker' });
+    const { page, context, errors } = await openPage(browser(), { userId: 'demo-checker' });
     const res = await page.goto(`/assemblies/${assemblyId}/report`);
     expect(res?.status()).toBe(200);
     const report = page.getByTestId('report');
@@ -180,7 +174,7 @@ describe('Report page', () => {
   });
 
   it('answers 404 for an assembly of no team of the reader', async () => {
-    const { page, context } = await openPage(browser, { userId: 'demo-checker' });
+    const { page, context } = await openPage(browser(), { userId: 'demo-checker' });
     const res = await page.goto('/assemblies/999999/report');
     expect(res?.status()).toBe(404);
     await context.close();

@@ -1,22 +1,12 @@
 // the user's story in Chromium: an admin invites a checker by e-mail, the checker accepts,
 // comments and marks the engineer's revision checked, the engineer issues and shares it,
 // and a signed-out browser opens the link and sees the same figures.
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launch, openPage, outsideRequests, screenshot } from '../support/browser';
-import { closeTestDb, lastMailTo } from '../support/db';
+import { describe, it, expect } from 'vitest';
+import { useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
+import { lastMailTo } from '../support/db';
 import { DEMO, call, demoTeamId, smallDocument, uid } from '../system/teamFixtures';
 
-let browser: Browser;
-let close: () => Promise<void>;
-
-beforeAll(async () => {
-  ({ browser, close } = await launch());
-});
-afterAll(async () => {
-  await close();
-  await closeTestDb();
-});
+const browser = useBrowser();
 
 describe('check and share, in the browser', () => {
   it('goes from invitation to a checked, issued and shared revision that a guest opens', async () => {
@@ -35,7 +25,7 @@ describe('check and share, in the browser', () => {
     const historyUrl = `/assemblies/${made.assembly.id}/history`;
 
     // 1. the admin invites a checker from the Team screen
-    const admin = await openPage(browser, { userId: DEMO.admin });
+    const admin = await openPage(browser(), { userId: DEMO.admin });
     await admin.page.goto('/team');
     const inviteForm = admin.page.getByRole('form', { name: 'Invite by e-mail' });
     await inviteForm.getByRole('textbox', { name: 'E-mail' }).fill(checkerEmail);
@@ -48,7 +38,7 @@ describe('check and share, in the browser', () => {
     // 2. the checker opens the mailed link in their own browser and makes an account
     const mail = await lastMailTo(checkerEmail);
     const inviteLink = mail.textBody.match(/https?:\/\/\S+\/invite\/[A-Za-z0-9_-]+/)![0];
-    const checker = await openPage(browser);
+    const checker = await openPage(browser());
     await checker.page.goto(new URL(inviteLink).pathname);
     await checker.page.getByLabel('Name').fill('Ines Varga');
     await checker.page.getByLabel('Password').fill('a checker passphrase');
@@ -58,7 +48,7 @@ describe('check and share, in the browser', () => {
     await expect(checker.page.getByTestId('my-role').textContent()).resolves.toContain('checker');
 
     // 3. the engineer signs in through the form and sends revision 2 to check
-    const engineer = await openPage(browser);
+    const engineer = await openPage(browser());
     await engineer.page.goto(`/signin?next=${encodeURIComponent(historyUrl)}`);
     await engineer.page.getByRole('textbox', { name: 'E-mail' }).fill('tomas@demo.wallpulse.test');
     await engineer.page.getByLabel('Password').fill('wallpulse-demo');
@@ -92,7 +82,7 @@ describe('check and share, in the browser', () => {
     await screenshot(engineer.page, 'history-issued-shared');
 
     // 6. a third, signed-out browser opens the link: the same build-up and figures, read-only
-    const guest = await openPage(browser);
+    const guest = await openPage(browser());
     const res = await guest.page.goto(new URL(shareUrl).pathname);
     expect(res?.status()).toBe(200);
     await guest.page.getByTestId('shared-view').waitFor();

@@ -1,8 +1,9 @@
+import { afterAll, beforeAll } from 'vitest';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { testEnv } from './env';
-import { sessionFor, SESSION_COOKIE } from './db';
+import { closeTestDb, sessionFor, SESSION_COOKIE } from './db';
 
 /** where screenshots and traces are kept after a run */
 export const ARTIFACTS = path.resolve('tests/artifacts');
@@ -34,6 +35,26 @@ export async function launch(): Promise<{ browser: Browser; close(): Promise<voi
   return {
     browser,
     close: () => browser.close(),
+  };
+}
+
+/**
+ * The set-up every browser test file shares: one Chromium launched before the file's
+ * tests, closed after them together with the test database pool. Call it at the top of
+ * the file; the getter returns the browser once it is up.
+ */
+export function useBrowser(): () => Browser {
+  let launched: Awaited<ReturnType<typeof launch>> | undefined;
+  beforeAll(async () => {
+    launched = await launch();
+  });
+  afterAll(async () => {
+    await launched?.close();
+    await closeTestDb();
+  });
+  return () => {
+    if (!launched) throw new Error('the browser is not launched yet: call the getter inside a test or hook');
+    return launched.browser;
   };
 }
 
