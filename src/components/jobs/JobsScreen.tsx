@@ -3,17 +3,9 @@ import type { ColumnDef } from '@tanstack/react-table';
 import DataTable from '../team/DataTable';
 import Field from '../team/Field';
 import { errorOf, formatWhen, send } from '../team/format';
+import type { JobRow as ServerJobRow, Wire } from '../../lib/schemas/rows';
 
-interface JobRow {
-  id: number;
-  name: string;
-  reference: string;
-  client: string;
-  location: string;
-  assemblyCount: number;
-  createdByName: string | null;
-  updatedAt: string;
-}
+type JobRow = Wire<ServerJobRow>;
 
 const columns: ColumnDef<JobRow>[] = [
   { id: 'name', header: 'Job', cell: ({ row }) => <a className="font-semibold text-accent-strong hover:underline" href={`/jobs/${row.original.id}`}>{row.original.name}</a> },

@@ -3,22 +3,16 @@ import type { ColumnDef } from '@tanstack/react-table';
 import DataTable from '../team/DataTable';
 import StateBadge from '../team/StateBadge';
 import { errorOf, formatWhen, send, STATE_LABEL } from '../team/format';
+import type * as rows from '../../lib/schemas/rows';
+import type { RevisionState, Role, Wire } from '../../lib/schemas/rows';
+import type { RevisionInfo } from '../../lib/workbench/store';
 
-type Role = 'admin' | 'engineer' | 'checker';
-type Target = 'in_check' | 'checked' | 'sent_back' | 'issued' | 'draft';
+/** a state a revision may be moved to */
+type Target = RevisionState;
 
-interface RevisionRow {
-  id: number;
-  number: number;
-  state: string;
-  note: string;
-  authorName: string | null;
-  createdAt: string;
-  runCount: number;
-  commentCount: number;
-}
+type RevisionRow = Wire<rows.RevisionRow>;
 interface Detail {
-  revision: { id: number; number: number; state: string; note: string; authorName: string | null; createdAt: string };
+  revision: RevisionInfo;
   events: { id: number; fromState: string | null; toState: string; note: string; actorName: string | null; createdAt: string }[];
   comments: { id: number; body: string; authorName: string | null; createdAt: string }[];
   moves: Target[];
@@ -30,15 +24,7 @@ interface RunRow {
   createdAt: string;
   hasSeries: boolean;
 }
-interface ShareRow {
-  id: number;
-  label: string;
-  createdAt: string;
-  expiresAt: string | null;
-  lastOpenedAt: string | null;
-  openCount: number;
-  status: string;
-}
+type ShareRow = Wire<rows.ShareRow>;
 
 const MOVE_TEXT: Record<Target, { label: string; hint: string; tone: string }> = {
   in_check: { label: 'Send to check', hint: 'A checker reads it, comments, and marks it checked or sends it back.', tone: 'bg-accent text-white' },

@@ -3,51 +3,13 @@ import type { ColumnDef } from '@tanstack/react-table';
 import DataTable from './DataTable';
 import Field from './Field';
 import { errorOf, formatWhen, send } from './format';
+import type * as rows from '../../lib/schemas/rows';
+import type { Role, Wire } from '../../lib/schemas/rows';
 
-type Role = 'admin' | 'engineer' | 'checker';
-
-interface MemberRow {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-  joinedAt: string;
-}
-interface InvitationRow {
-  id: number;
-  email: string;
-  role: Role;
-  invitedByName: string | null;
-  createdAt: string;
-  expiresAt: string;
-  status: 'open' | 'accepted' | 'revoked' | 'expired';
-}
-interface ShareRow {
-  id: number;
-  label: string;
-  revisionId: number;
-  revisionNumber: number;
-  assemblyId: number;
-  assemblyName: string;
-  jobName: string;
-  createdByName: string | null;
-  createdAt: string;
-  expiresAt: string | null;
-  lastOpenedAt: string | null;
-  openCount: number;
-  status: 'active' | 'expired' | 'revoked';
-}
-interface AuditRow {
-  id: number;
-  action: string;
-  actorName: string | null;
-  target: string;
-  detail: Record<string, unknown> | null;
-  ip: string;
-  success: boolean;
-  createdAt: string;
-  targetText: string;
-}
+type MemberRow = Wire<rows.MemberRow>;
+type InvitationRow = Wire<rows.InvitationRow>;
+type ShareRow = Wire<rows.ShareRow>;
+type AuditRow = Wire<rows.AuditRow>;
 
 const ROLE_TEXT: Record<Role, string> = {
   admin: 'Admin: everything, plus members and roles',

@@ -2,20 +2,8 @@ import { and, count, desc, eq, inArray, like, or } from 'drizzle-orm';
 import { db } from '../db';
 import { assemblies, auditLog, revisions, shareLinks, users } from '../db/schema';
 import type { ListQuery } from '../../schemas/api';
+import type { AuditRow } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
-
-export interface AuditRow {
-  id: number;
-  action: string;
-  actorName: string | null;
-  target: string;
-  detail: Record<string, unknown> | null;
-  ip: string;
-  success: boolean;
-  createdAt: Date;
-  /** the target in words: a member's name, a share link's label and assembly */
-  targetText: string;
-}
 
 const PERSON_ACTIONS = new Set(['role_changed', 'member_removed', 'member_left']);
 

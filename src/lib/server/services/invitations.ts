@@ -8,6 +8,7 @@ import { audit } from '../audit';
 import { sendMail } from '../mail';
 import { hashToken, tokenPair, DAY_MS } from '../tokens';
 import type { ListQuery } from '../../schemas/api';
+import type { InvitationRow, InvitationStatus } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 import { fail, type Fail } from './teams';
 
@@ -45,20 +46,6 @@ export async function invite(teamId: number, actor: { id: string; name: string }
   }
   await audit({ action: 'invitation_sent', teamId, actorId: actor.id, target: email, detail: { role, invitationId: row.id }, ip });
   return { ok: true, id: row.id };
-}
-
-export type InvitationStatus = 'open' | 'accepted' | 'revoked' | 'expired';
-
-export interface InvitationRow {
-  id: number;
-  email: string;
-  role: Role;
-  invitedByName: string | null;
-  createdAt: Date;
-  expiresAt: Date;
-  acceptedAt: Date | null;
-  revokedAt: Date | null;
-  status: InvitationStatus;
 }
 
 function statusOf(r: { acceptedAt: Date | null; revokedAt: Date | null; expiresAt: Date }): InvitationStatus {

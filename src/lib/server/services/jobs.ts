@@ -3,20 +3,9 @@ import { and, count, eq, like, or, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { assemblies, jobs, revisions, revisionEvents, users } from '../db/schema';
 import type { ListQuery } from '../../schemas/api';
+import type { JobRow } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 import { defaultDocument, type Element } from './defaultDocument';
-
-export interface JobRow {
-  id: number;
-  name: string;
-  reference: string;
-  client: string;
-  location: string;
-  assemblyCount: number;
-  createdByName: string | null;
-  createdAt: Date;
-  updatedAt: Date;
-}
 
 const assemblyCount = sql<number>`(select count(*) from ${assemblies} where ${assemblies.jobId} = ${jobs.id})`.mapWith(Number);
 

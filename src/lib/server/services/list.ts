@@ -1,13 +1,7 @@
 import { asc, desc, type SQL, type AnyColumn } from 'drizzle-orm';
 import type { ListQuery } from '../../schemas/api';
 
-/** one page of a list, as every list endpoint answers */
-export interface Page<T> {
-  items: T[];
-  page: number;
-  pageSize: number;
-  total: number;
-}
+export type { Page } from '../../schemas/rows';
 
 /** ORDER BY for a "key" or "-key" sort, falling back to the first column */
 export function orderFor(sort: string, columns: Record<string, AnyColumn | SQL>): SQL[] {

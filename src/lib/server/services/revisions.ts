@@ -5,6 +5,7 @@ import { assemblies, comments, revisionEvents, revisions, runs, users, type Revi
 import { can } from '../access';
 import { audit } from '../audit';
 import type { ListQuery } from '../../schemas/api';
+import type { RevisionRow } from '../../schemas/rows';
 import type { WorkbenchDocument } from '../../schemas/workbench';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 import { fail, type Fail } from './teams';
@@ -77,17 +78,6 @@ export async function saveRevision(assemblyId: number, userId: string, baseRevis
   if (!result.stale) return { ok: true, revision: result.revision };
   const head = await headOf(assemblyId);
   return { ok: false, stale: true, head: head! };
-}
-
-export interface RevisionRow {
-  id: number;
-  number: number;
-  state: RevisionState;
-  note: string;
-  authorName: string | null;
-  createdAt: Date;
-  runCount: number;
-  commentCount: number;
 }
 
 const runCount = sql<number>`(select count(*) from ${runs} where ${runs.revisionId} = ${revisions.id})`.mapWith(Number);

@@ -7,6 +7,7 @@ import { assemblies, jobs, revisions, shareLinks, users } from '../db/schema';
 import { audit } from '../audit';
 import { hashToken, tokenPair, DAY_MS } from '../tokens';
 import type { ListQuery } from '../../schemas/api';
+import type { ShareRow } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 import { fail, type Fail } from './teams';
 import { runsOf } from './revisions';
@@ -29,23 +30,6 @@ export async function createShare(
   const [row] = await db.insert(shareLinks).values({ revisionId, tokenHash: hash, label: input.label, createdBy: actor.id, expiresAt }).$returningId();
   await audit({ action: 'share_created', teamId: actor.teamId, actorId: actor.id, target: `share:${row.id}`, detail: { revisionId, label: input.label, expiresAt }, ip });
   return { ok: true, share: { id: row.id, url: shareUrl(token), expiresAt } };
-}
-
-export interface ShareRow {
-  id: number;
-  label: string;
-  revisionId: number;
-  revisionNumber: number;
-  assemblyId: number;
-  assemblyName: string;
-  jobName: string;
-  createdByName: string | null;
-  createdAt: Date;
-  expiresAt: Date | null;
-  revokedAt: Date | null;
-  lastOpenedAt: Date | null;
-  openCount: number;
-  status: 'active' | 'expired' | 'revoked';
 }
 
 const statusOf = (r: { revokedAt: Date | null; expiresAt: Date | null }): ShareRow['status'] =>

@@ -4,6 +4,7 @@ import { db } from '../db';
 import { memberships, teams, users, type Role } from '../db/schema';
 import { audit } from '../audit';
 import type { ListQuery } from '../../schemas/api';
+import type { MemberRow } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 
 export type Fail = { ok: false; status: number; code: string; message: string };
@@ -14,14 +15,6 @@ export async function createTeam(userId: string, name: string, ip = ''): Promise
   await db.insert(memberships).values({ teamId: team.id, userId, role: 'admin' });
   await audit({ action: 'team_created', teamId: team.id, actorId: userId, target: name, ip });
   return { id: team.id, name };
-}
-
-export interface MemberRow {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-  joinedAt: Date;
 }
 
 export async function listMembers(teamId: number, q: ListQuery): Promise<Page<MemberRow>> {
