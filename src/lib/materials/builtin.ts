@@ -1,25 +1,18 @@
 // the built-in material library: typical values, each with the published table it comes from.
 // these are starting points to be replaced by the chosen product's declared data.
 import type { MaterialClass } from '../schemas/workbench';
+import type { MaterialFields } from './schema';
 
-export interface BuiltinMaterial {
+/**
+ * A built-in material: its values (conductivity in W/(m·K), for an air layer the equivalent
+ * conductivity d/R of its thickness; vapour-tight layers carry a large finite μ; source is
+ * the published table the values come from), a stable key and a starting thickness.
+ */
+export interface BuiltinMaterial extends MaterialFields {
   /** stable key, kept in materials.builtinKey and in a layer's materialRef as "builtin:<key>" */
   key: string;
-  name: string;
-  materialClass: MaterialClass;
-  /** W/(m·K); for an air layer the equivalent conductivity d/R of its thickness */
-  conductivity: number;
-  /** kg/m³ */
-  density: number;
-  /** J/(kg·K) */
-  specificHeat: number;
-  /** water-vapour resistance factor μ, dimensionless (vapour-tight layers carry a large finite μ) */
-  vapourResistanceFactor: number;
   /** typical thickness a new layer starts with, m */
   typicalThickness: number;
-  /** the published table the values come from */
-  source: string;
-  notes: string;
 }
 
 const ISO10456 = 'ISO 10456:2007 Table 3 (design thermal values of building materials), from memory';

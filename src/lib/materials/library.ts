@@ -1,25 +1,14 @@
 // one material as the workbench and the library screen see it, whether built in or the team's own
-import type { MaterialClass } from '../schemas/workbench';
+import type { MaterialFields } from './schema';
 import { builtinMaterial, CLASS_TYPICAL_THICKNESS } from './builtin';
 
-export interface LibraryMaterial {
+/** a material's values (units as in materialFieldsSchema) and where it is kept */
+export interface LibraryMaterial extends MaterialFields {
   /** database id */
   id: number;
   /** null for a built-in */
   teamId: number | null;
   builtinKey: string | null;
-  name: string;
-  materialClass: MaterialClass;
-  /** W/(m·K) */
-  conductivity: number;
-  /** kg/m³ */
-  density: number;
-  /** J/(kg·K) */
-  specificHeat: number;
-  /** μ, dimensionless */
-  vapourResistanceFactor: number;
-  source: string;
-  notes: string;
 }
 
 /** what a layer records as its origin: "builtin:<key>" or "team:<id>" */

@@ -33,6 +33,20 @@ export const materialFieldsSchema = z.object({
 });
 export type MaterialFields = z.output<typeof materialFieldsSchema>;
 
+/** just the material's values, off anything that carries them (a database row, a built-in, a library entry) */
+export function materialFieldsOf(m: MaterialFields): MaterialFields {
+  return {
+    name: m.name,
+    materialClass: m.materialClass,
+    conductivity: m.conductivity,
+    density: m.density,
+    specificHeat: m.specificHeat,
+    vapourResistanceFactor: m.vapourResistanceFactor,
+    source: m.source,
+    notes: m.notes,
+  };
+}
+
 export const FIELD_LABELS: Record<keyof MaterialFields, string> = {
   name: 'Name',
   materialClass: 'Class',

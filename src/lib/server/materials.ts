@@ -3,7 +3,7 @@ import { and, asc, eq, isNull, or, sql } from 'drizzle-orm';
 import { db } from './db';
 import { teamsOf } from './access';
 import { materials, type Material } from './db/schema';
-import type { MaterialFields } from '../materials/schema';
+import { materialFieldsOf, type MaterialFields } from '../materials/schema';
 import type { LibraryMaterial } from '../materials/library';
 
 export function toLibraryMaterial(m: Material): LibraryMaterial {
@@ -11,14 +11,7 @@ export function toLibraryMaterial(m: Material): LibraryMaterial {
     id: m.id,
     teamId: m.teamId,
     builtinKey: m.builtinKey,
-    name: m.name,
-    materialClass: m.materialClass,
-    conductivity: m.conductivity,
-    density: m.density,
-    specificHeat: m.specificHeat,
-    vapourResistanceFactor: m.vapourResistanceFactor,
-    source: m.source,
-    notes: m.notes,
+    ...materialFieldsOf(m),
   };
 }
 

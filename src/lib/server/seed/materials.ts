@@ -2,20 +2,14 @@ import { sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { materials } from '../db/schema';
 import { BUILTIN_MATERIALS } from '../../materials/builtin';
+import { materialFieldsOf } from '../../materials/schema';
 
 /** the built-in library in the materials table (teamId null); upsert by builtinKey, so a new release refreshes the values */
 export async function seedBuiltinMaterials(db: Database): Promise<void> {
   const rows = BUILTIN_MATERIALS.map((m) => ({
     teamId: null,
     builtinKey: m.key,
-    name: m.name,
-    materialClass: m.materialClass,
-    conductivity: m.conductivity,
-    density: m.density,
-    specificHeat: m.specificHeat,
-    vapourResistanceFactor: m.vapourResistanceFactor,
-    source: m.source,
-    notes: m.notes,
+    ...materialFieldsOf(m),
   }));
   await db
     .insert(materials)
