@@ -217,16 +217,18 @@ export async function addRun(revisionId: number, userId: string, input: { exposu
   return { id: row.id, createdAt };
 }
 
+/** what a run answers with besides its ids: what it ran, what it found, and who ran it when */
+const runFields = {
+  exposure: runs.exposure,
+  summary: runs.summary,
+  series: runs.series,
+  createdByName: users.name,
+  createdAt: runs.createdAt,
+};
+
 export async function runsOf(revisionId: number, withSeries = false) {
   const rows = await db
-    .select({
-      id: runs.id,
-      exposure: runs.exposure,
-      summary: runs.summary,
-      series: runs.series,
-      createdByName: users.name,
-      createdAt: runs.createdAt,
-    })
+    .select({ id: runs.id, ...runFields })
     .from(runs)
     .leftJoin(users, eq(users.id, runs.createdBy))
     .where(eq(runs.revisionId, revisionId))
@@ -237,15 +239,7 @@ export async function runsOf(revisionId: number, withSeries = false) {
 
 export async function getRun(runId: number) {
   const rows = await db
-    .select({
-      id: runs.id,
-      revisionId: runs.revisionId,
-      exposure: runs.exposure,
-      summary: runs.summary,
-      series: runs.series,
-      createdByName: users.name,
-      createdAt: runs.createdAt,
-    })
+    .select({ id: runs.id, revisionId: runs.revisionId, ...runFields })
     .from(runs)
     .leftJoin(users, eq(users.id, runs.createdBy))
     .where(eq(runs.id, runId))
