@@ -3,7 +3,7 @@ import { and, count, eq, like, or, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { memberships, teams, users, type Role } from '../db/schema';
 import { audit } from '../audit';
-import type { ListQuery } from '../../schemas/api';
+import { teamBody, type ListQuery } from '../../schemas/api';
 import type { MemberRow } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 
@@ -15,6 +15,18 @@ export async function createTeam(userId: string, name: string, ip = ''): Promise
   await db.insert(memberships).values({ teamId: team.id, userId, role: 'admin' });
   await audit({ action: 'team_created', teamId: team.id, actorId: userId, target: name, ip });
   return { id: team.id, name };
+}
+
+/**
+ * The "start a team" form (field teamName) of the Jobs and Team pages: the new team,
+ * or the name as typed with the message for its field.
+ */
+export async function createTeamFromForm(userId: string, form: FormData, ip = ''): Promise<{ ok: true; teamId: number } | { ok: false; name: string; error: string }> {
+  const name = String(form.get('teamName') ?? '');
+  const parsed = teamBody.safeParse({ name });
+  if (!parsed.success) return { ok: false, name, error: parsed.error.issues[0]?.message ?? 'Team name is not valid' };
+  const team = await createTeam(userId, parsed.data.name, ip);
+  return { ok: true, teamId: team.id };
 }
 
 export async function listMembers(teamId: number, q: ListQuery): Promise<Page<MemberRow>> {
