@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import Modal from './Modal';
+import DialogActions from './DialogActions';
 
 /** the note of a new revision, then save */
 export default function SaveDialog({ nextNumber, saving, error, onSave, onCancel }: { nextNumber: number; saving: boolean; error: string; onSave(note: string): void; onCancel(): void }) {
@@ -9,7 +10,7 @@ export default function SaveDialog({ nextNumber, saving, error, onSave, onCancel
   return (
     <Modal title={`Save as revision ${nextNumber}`} onClose={onCancel} testId="save-dialog">
       <form
-        className="mt-3 space-y-3"
+        className="mt-3"
         onSubmit={(e) => {
           e.preventDefault();
           if (!tooLong && !saving) onSave(note.trim());
@@ -35,19 +36,7 @@ export default function SaveDialog({ nextNumber, saving, error, onSave, onCancel
             </p>
           ) : null}
         </div>
-        {error ? (
-          <p role="alert" className="rounded bg-danger-soft px-2 py-1.5 text-sm text-danger">
-            {error}
-          </p>
-        ) : null}
-        <div className="flex justify-end gap-2">
-          <button type="button" onClick={onCancel} className="rounded border border-line px-3 py-1.5 text-sm">
-            Cancel
-          </button>
-          <button type="submit" disabled={saving || tooLong} className="rounded bg-accent px-4 py-1.5 text-sm font-semibold text-white disabled:opacity-50">
-            {saving ? 'Saving…' : `Save revision ${nextNumber}`}
-          </button>
-        </div>
+        <DialogActions error={error} cancelLabel="Cancel" onCancel={onCancel} primaryLabel={`Save revision ${nextNumber}`} busy={saving} disabled={tooLong} />
       </form>
     </Modal>
   );

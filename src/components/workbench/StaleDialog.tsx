@@ -1,4 +1,5 @@
 import Modal from './Modal';
+import DialogActions from './DialogActions';
 import type { StaleInfo } from './Workbench';
 
 /** a save met a newer revision: say what it changed, then save on top of it or keep editing */
@@ -35,19 +36,7 @@ export default function StaleDialog({ stale, saving, error, onSaveOnTop, onKeepE
         <p className="mt-2 text-sm">Its build-up could not be compared with yours.</p>
       )}
       <p className="mt-2 text-sm">Saving on top keeps their revision in the history and makes yours the newest; nothing is lost either way.</p>
-      {error ? (
-        <p role="alert" className="mt-2 rounded bg-danger-soft px-2 py-1.5 text-sm text-danger">
-          {error}
-        </p>
-      ) : null}
-      <div className="mt-4 flex justify-end gap-2">
-        <button type="button" onClick={onKeepEditing} className="rounded border border-line px-3 py-1.5 text-sm">
-          Keep editing
-        </button>
-        <button type="button" onClick={onSaveOnTop} disabled={saving} className="rounded bg-accent px-4 py-1.5 text-sm font-semibold text-white disabled:opacity-50">
-          {saving ? 'Saving…' : `Save on top as revision ${head.number + 1}`}
-        </button>
-      </div>
+      <DialogActions error={error} cancelLabel="Keep editing" onCancel={onKeepEditing} primaryLabel={`Save on top as revision ${head.number + 1}`} onPrimary={onSaveOnTop} busy={saving} />
     </Modal>
   );
 }
