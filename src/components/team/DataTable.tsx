@@ -3,13 +3,7 @@
 import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
 import { errorOf } from './format';
-
-export interface PageOf<T> {
-  items: T[];
-  page: number;
-  pageSize: number;
-  total: number;
-}
+import type { Page } from '../../lib/schemas/rows';
 
 interface Props<T> {
   /** list endpoint, may already carry query parameters (teamId) */
@@ -42,7 +36,7 @@ export default function DataTable<T>({ endpoint, columns, defaultSort, filterHin
   const [filter, setFilter] = useState('');
   const [q, setQ] = useState('');
   const [page, setPage] = useState(1);
-  const [data, setData] = useState<PageOf<T> | null>(null);
+  const [data, setData] = useState<Page<T> | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [loading, setLoading] = useState(true);
   const [retry, setRetry] = useState(0);
@@ -68,7 +62,7 @@ export default function DataTable<T>({ endpoint, columns, defaultSort, filterHin
     fetch(url, { signal: ctrl.signal })
       .then(async (res) => {
         if (!res.ok) throw new Error((await errorOf(res)).message);
-        setData((await res.json()) as PageOf<T>);
+        setData((await res.json()) as Page<T>);
         setError(null);
       })
       .catch((err: unknown) => {
