@@ -6,40 +6,26 @@ import { useWorkbench } from '../../lib/workbench/store';
 import { HEAT_FLOW_DIRECTIONS, ISO6946_RSE, ISO6946_RSI, type Exposure, type Outdoor } from '../../lib/schemas/workbench';
 import type { UploadSummary } from '../../lib/schemas/upload';
 import CsvImport from './CsvImport';
+import { parseNumber, type NumberRule } from './numberRule';
 
-/** a number field's rule: label, unit, bounds; the message always names the field */
-interface NumberRule {
-  label: string;
-  unit: string;
-  min?: number;
-  max?: number;
-  /** the bounds themselves are allowed (default true) */
-  inclusive?: boolean;
-  integer?: boolean;
-  /** empty text means "none" (null) */
-  optional?: boolean;
-  /** UI value = model value × scale */
-  scale?: number;
-  extra?: (v: number) => string | null;
-}
-
-export function parseNumber(rule: NumberRule, raw: string): { ok: true; value: number | null } | { ok: false; error: string } {
-  const unit = rule.unit ? ` ${rule.unit}` : '';
-  const text = raw.trim().replace(',', '.');
-  if (text === '') return rule.optional ? { ok: true, value: null } : { ok: false, error: `${rule.label} is required${unit ? ` (in${unit})` : ''}` };
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text)) return { ok: false, error: `${rule.label} must be a number${unit ? ` in${unit}` : ''}` };
-  const v = Number(text);
-  if (rule.integer && !Number.isInteger(v)) return { ok: false, error: `${rule.label} must be a whole number${unit ? ` of${unit}` : ''}` };
-  const inc = rule.inclusive !== false;
-  if (rule.min !== undefined && (inc ? v < rule.min : v <= rule.min)) {
-    return { ok: false, error: `${rule.label} must be ${inc ? 'at least' : 'greater than'} ${rule.min}${unit}` };
-  }
-  if (rule.max !== undefined && (inc ? v > rule.max : v >= rule.max)) {
-    return { ok: false, error: `${rule.label} must be ${inc ? 'at most' : 'less than'} ${rule.max}${unit}` };
-  }
-  const extra = rule.extra?.(v);
-  if (extra) return { ok: false, error: extra };
-  return { ok: true, value: v / (rule.scale ?? 1) };
+/** a row of mutually exclusive choices shown as buttons (a radio group) */
+function Choice<T extends string>({ label, options, value, onChoose }: { label: string; options: readonly (readonly [T, string])[]; value: T; onChoose(v: T): void }) {
+  return (
+    <div role="radiogroup" aria-label={label} className="flex gap-1 w-full">
+      {options.map(([m, text]) => (
+        <button
+          key={m}
+          type="button"
+          role="radio"
+          aria-checked={value === m}
+          className={`px-2.5 py-1 rounded border ${value === m ? 'bg-accent text-white border-accent' : 'border-line bg-panel hover:bg-paper'}`}
+          onClick={() => onChoose(m)}
+        >
+          {text}
+        </button>
+      ))}
+    </div>
+  );
 }
 
 const show = (v: number | null | undefined, scale = 1) => (v === null || v === undefined ? '' : String(Number((v * scale).toPrecision(10))));
@@ -207,26 +193,16 @@ export default function ExposurePane() {
       </h2>
 
       <Group title="Outdoor air">
-        <div role="radiogroup" aria-label="Outdoor air" className="flex gap-1 w-full">
-          {(
-            [
-              ['sine', 'Daily sine'],
-              ['solair', 'Sol-air day'],
-              ['series', 'Uploaded series'],
-            ] as const
-          ).map(([m, label]) => (
-            <button
-              key={m}
-              type="button"
-              role="radio"
-              aria-checked={mode === m}
-              className={`px-2.5 py-1 rounded border ${mode === m ? 'bg-accent text-white border-accent' : 'border-line bg-panel hover:bg-paper'}`}
-              onClick={() => chooseMode(m)}
-            >
-              {label}
-            </button>
-          ))}
-        </div>
+        <Choice
+          label="Outdoor air"
+          options={[
+            ['sine', 'Daily sine'],
+            ['solair', 'Sol-air day'],
+            ['series', 'Uploaded series'],
+          ]}
+          value={mode}
+          onChoose={chooseMode}
+        />
         {out.mode !== 'series' && mode !== 'series' ? (
           <>
             <NumberField field="exposure:mean" rule={{ label: 'Daily mean', unit: '°C', min: -80, max: 70 }} value={out.mean} onValue={(v) => patchOutdoor({ mean: v! })} hint="Mean outdoor air temperature over the day" />
@@ -308,30 +284,20 @@ export default function ExposurePane() {
       </Group>
 
       <Group title="Indoor air">
-        <div role="radiogroup" aria-label="Indoor air" className="flex gap-1 w-full">
-          {(
-            [
-              ['constant', 'Constant'],
-              ['schedule', '24-hour schedule'],
-            ] as const
-          ).map(([m, label]) => (
-            <button
-              key={m}
-              type="button"
-              role="radio"
-              aria-checked={exposure.indoor.mode === m}
-              className={`px-2.5 py-1 rounded border ${exposure.indoor.mode === m ? 'bg-accent text-white border-accent' : 'border-line bg-panel hover:bg-paper'}`}
-              onClick={() => {
-                const ind = exposure.indoor;
-                if (m === ind.mode) return;
-                if (m === 'schedule') setIndoor({ mode: 'schedule', hourly: Array.from({ length: 24 }, () => (ind.mode === 'constant' ? ind.value : 21)) });
-                else setIndoor({ mode: 'constant', value: ind.mode === 'schedule' ? Number((ind.hourly.reduce((a, b) => a + b, 0) / 24).toFixed(1)) : 21 });
-              }}
-            >
-              {label}
-            </button>
-          ))}
-        </div>
+        <Choice
+          label="Indoor air"
+          options={[
+            ['constant', 'Constant'],
+            ['schedule', '24-hour schedule'],
+          ]}
+          value={exposure.indoor.mode}
+          onChoose={(m) => {
+            const ind = exposure.indoor;
+            if (m === ind.mode) return;
+            if (m === 'schedule') setIndoor({ mode: 'schedule', hourly: Array.from({ length: 24 }, () => (ind.mode === 'constant' ? ind.value : 21)) });
+            else setIndoor({ mode: 'constant', value: ind.mode === 'schedule' ? Number((ind.hourly.reduce((a, b) => a + b, 0) / 24).toFixed(1)) : 21 });
+          }}
+        />
         {exposure.indoor.mode === 'constant' ? (
           <NumberField field="exposure:indoor" rule={{ label: 'Indoor air', unit: '°C', min: -30, max: 60 }} value={exposure.indoor.value} onValue={(v) => setIndoor({ mode: 'constant', value: v! })} />
         ) : (
