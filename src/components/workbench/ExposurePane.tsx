@@ -6,7 +6,7 @@ import { useWorkbench } from '../../lib/workbench/store';
 import { HEAT_FLOW_DIRECTIONS, ISO6946_RSE, ISO6946_RSI, type Exposure, type Outdoor } from '../../lib/schemas/workbench';
 import type { UploadSummary } from '../../lib/schemas/upload';
 import CsvImport from './CsvImport';
-import { parseNumber, type NumberRule } from './numberRule';
+import { MAX_RUN_DAYS, daysRule, parseNumber, warmupRule, type NumberRule } from './numberRule';
 
 /** a row of mutually exclusive choices shown as buttons (a radio group) */
 function Choice<T extends string>({ label, options, value, onChoose }: { label: string; options: readonly (readonly [T, string])[]; value: T; onChoose(v: T): void }) {
@@ -360,8 +360,8 @@ export default function ExposurePane() {
       </Group>
 
       <Group title="Run">
-        {num('days', { label: 'Days to report', unit: 'd', min: 1, max: 3660, integer: true })}
-        {num('warmupDays', { label: 'Warm-up days', unit: 'd', min: 0, max: 60, integer: true }, 'Days run first and left out of the figures, so the wall forgets its starting state')}
+        {num('days', daysRule(exposure.warmupDays), `Days whose figures are reported; with the warm-up days at most ${MAX_RUN_DAYS} days (ten years) in all`)}
+        {num('warmupDays', warmupRule(exposure.days), 'Days run first and left out of the figures, so the wall forgets its starting state')}
         <label className="flex flex-col gap-0.5">
           <span className="text-xs text-ink-soft">Time step</span>
           <select className="rounded border border-line px-2 py-1 bg-panel tabular" value={exposure.timeStep} onChange={(e) => setExposure({ timeStep: Number(e.target.value) })}>

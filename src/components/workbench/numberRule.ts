@@ -1,5 +1,6 @@
 // the rules of the Exposure pane's number fields and their one parser: the message of a
 // rejected value always names the field and its unit. pure code, so unit tests can load it.
+import { MAX_DURATION } from '../../lib/schemas/model';
 
 /** a number field's rule: label, unit, bounds; the message always names the field */
 export interface NumberRule {
@@ -35,3 +36,26 @@ export function parseNumber(rule: NumberRule, raw: string): { ok: true; value: n
   if (extra) return { ok: false, error: extra };
   return { ok: true, value: v / (rule.scale ?? 1) };
 }
+
+/** the most days a run may take in all (reported plus warm-up): the engine's ten years, whole days */
+export const MAX_RUN_DAYS = Math.floor(MAX_DURATION / 86400); // 3652
+const TOTAL_DAYS_MESSAGE = `Days to report plus warm-up days must be at most ${MAX_RUN_DAYS} (ten years)`;
+/** the rule of "Days to report", given the warm-up days in the document */
+export const daysRule = (warmupDays: number): NumberRule => ({
+  label: 'Days to report',
+  unit: 'd',
+  min: 1,
+  max: 3660,
+  integer: true,
+  extra: (v) => (v + warmupDays > MAX_RUN_DAYS ? `${TOTAL_DAYS_MESSAGE}; with ${warmupDays} warm-up days, at most ${MAX_RUN_DAYS - warmupDays} days to report` : null),
+});
+/** the rule of "Warm-up days", given the days to report in the document */
+export const warmupRule = (days: number): NumberRule => ({
+  label: 'Warm-up days',
+  unit: 'd',
+  min: 0,
+  max: 60,
+  integer: true,
+  extra: (v) => (v + days > MAX_RUN_DAYS ? `${TOTAL_DAYS_MESSAGE}; with ${days} days to report, at most ${MAX_RUN_DAYS - days} warm-up days` : null),
+});
+
