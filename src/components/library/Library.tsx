@@ -9,7 +9,7 @@ import {
   type FilterFn,
   type SortingState,
 } from '@tanstack/react-table';
-import type { LibraryMaterial } from '../../lib/materials/library';
+import { fetchMaterials, type LibraryMaterial } from '../../lib/materials/library';
 import { CLASS_LABELS } from '../../lib/materials/builtin';
 import { MATERIAL_CLASSES } from '../../lib/schemas/workbench';
 import { MAT_BG } from '../workbench/materialStyle';
@@ -52,10 +52,7 @@ export default function Library({ teamId, teamName, canEdit }: Props) {
 
   const reload = useCallback(async () => {
     try {
-      const r = await fetch(`/api/materials?teamId=${teamId}`, { headers: { accept: 'application/json' } });
-      const body = (await r.json().catch(() => null)) as { materials?: LibraryMaterial[]; error?: { message: string } } | null;
-      if (!r.ok || !body?.materials) throw new Error(body?.error?.message ?? `The library could not be loaded (HTTP ${r.status}).`);
-      setMaterials(body.materials);
+      setMaterials(await fetchMaterials(teamId));
       setLoadError('');
     } catch (e) {
       setLoadError((e as Error).message);

@@ -1,15 +1,19 @@
 // the Exposure pane: outdoor and indoor conditions, surface films, run settings.
 // every field keeps what was typed (a draft with its message) while the document keeps
 // the last valid value, so a half-typed number never reaches the run.
-import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
+import { createContext, useContext, useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import { useWorkbench } from '../../lib/workbench/store';
 import { HEAT_FLOW_DIRECTIONS, ISO6946_RSE, ISO6946_RSI, type Exposure, type Outdoor } from '../../lib/schemas/workbench';
 import type { UploadSummary } from '../../lib/schemas/upload';
 import CsvImport from './CsvImport';
 import { MAX_RUN_DAYS, daysRule, parseNumber, warmupRule, type NumberRule } from './numberRule';
 
+/** the pane is read-only (a checker's view): fields show their values and cannot change */
+const ReadOnly = createContext(false);
+
 /** a row of mutually exclusive choices shown as buttons (a radio group) */
 function Choice<T extends string>({ label, options, value, onChoose }: { label: string; options: readonly (readonly [T, string])[]; value: T; onChoose(v: T): void }) {
+  const readOnly = useContext(ReadOnly);
   return (
     <div role="radiogroup" aria-label={label} className="flex gap-1 w-full">
       {options.map(([m, text]) => (
@@ -18,7 +22,8 @@ function Choice<T extends string>({ label, options, value, onChoose }: { label: 
           type="button"
           role="radio"
           aria-checked={value === m}
-          className={`px-2.5 py-1 rounded border ${value === m ? 'bg-accent text-white border-accent' : 'border-line bg-panel hover:bg-paper'}`}
+          disabled={readOnly}
+          className={`px-2.5 py-1 rounded border ${value === m ? 'bg-accent text-white border-accent' : 'border-line bg-panel enabled:hover:bg-paper disabled:text-ink-faint'}`}
           onClick={() => onChoose(m)}
         >
           {text}
@@ -50,6 +55,7 @@ function NumberField({
   const draft = useWorkbench((s) => s.drafts[field]);
   const setDraft = useWorkbench((s) => s.setDraft);
   const clearDraft = useWorkbench((s) => s.clearDraft);
+  const readOnly = useContext(ReadOnly);
   const text = draft ? draft.raw : show(value, rule.scale);
   const error = draft?.error ?? null;
   return (
@@ -62,12 +68,14 @@ function NumberField({
         id={id}
         name={field}
         inputMode="decimal"
-        className={`${width} rounded border px-2 py-1 text-right tabular bg-panel ${error ? 'border-danger' : 'border-line'}`}
+        className={`${width} rounded border px-2 py-1 text-right tabular ${readOnly ? 'bg-paper text-ink-soft' : 'bg-panel'} ${error ? 'border-danger' : 'border-line'}`}
         value={text}
+        readOnly={readOnly}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-err` : undefined}
         title={hint}
         onChange={(e) => {
+          if (readOnly) return;
           const raw = e.target.value;
           const parsed = parseNumber(rule, raw);
           if (!parsed.ok) setDraft(field, raw, parsed.error);
@@ -105,7 +113,7 @@ const hourRule = (label: string): NumberRule => ({ label, unit: 'h', min: 0, max
 /** defaults for the sun when switching to a sol-air day: a west face in summer (our own choice) */
 const SUN_DEFAULTS = { absorptance: 0.6, peakIrradiance: 550, sunrise: 11, sunset: 20 };
 
-export default function ExposurePane() {
+export default function ExposurePane({ readOnly = false }: { readOnly?: boolean }) {
   const exposure = useWorkbench((s) => s.doc.exposure);
   const teamId = useWorkbench((s) => s.assembly?.teamId ?? null);
   const setExposure = useWorkbench((s) => s.setExposure);
@@ -187,10 +195,16 @@ export default function ExposurePane() {
   const totalDays = exposure.days + exposure.warmupDays;
 
   return (
+    <ReadOnly.Provider value={readOnly}>
     <section aria-labelledby="exposure-title" className="flex flex-col gap-1 text-sm" data-testid="exposure-pane">
       <h2 id="exposure-title" className="text-base font-semibold">
         Exposure
       </h2>
+      {readOnly ? (
+        <p className="text-xs text-ink-soft" data-testid="exposure-read-only">
+          Read only: these are the revision's saved settings; as checker you run them as they are, and engineers change them.
+        </p>
+      ) : null}
 
       <Group title="Outdoor air">
         <Choice
@@ -242,7 +256,8 @@ export default function ExposurePane() {
               <label className="flex flex-col gap-0.5">
                 <span className="text-xs text-ink-soft">Upload of the team</span>
                 <select
-                  className="rounded border border-line px-2 py-1 bg-panel"
+                  className="rounded border border-line px-2 py-1 bg-panel disabled:bg-paper disabled:text-ink-soft"
+                  disabled={readOnly}
                   value={out.mode === 'series' ? String(out.uploadId) : ''}
                   onChange={(e) => {
                     const id = Number(e.target.value);
@@ -263,11 +278,13 @@ export default function ExposurePane() {
             {out.mode === 'series' ? (
               <NumberField field="exposure:seriesAbsorptance" rule={{ label: 'Solar absorptance', unit: '', min: 0, max: 1 }} value={out.absorptance} onValue={(v) => setOutdoor({ ...out, absorptance: v! })} hint="Used with the upload's irradiance column, when it has one" />
             ) : null}
-            <div>
-              <button type="button" className="px-2.5 py-1 rounded border border-line bg-panel hover:bg-paper" onClick={() => setImporting(true)}>
-                Import a CSV file…
-              </button>
-            </div>
+            {readOnly ? null : (
+              <div>
+                <button type="button" className="px-2.5 py-1 rounded border border-line bg-panel hover:bg-paper" onClick={() => setImporting(true)}>
+                  Import a CSV file…
+                </button>
+              </div>
+            )}
             {importing ? (
               <CsvImport
                 teamId={teamId}
@@ -327,7 +344,8 @@ export default function ExposurePane() {
         <label className="flex flex-col gap-0.5">
           <span className="text-xs text-ink-soft">Heat flow</span>
           <select
-            className="rounded border border-line px-2 py-1 bg-panel"
+            className="rounded border border-line px-2 py-1 bg-panel disabled:bg-paper disabled:text-ink-soft"
+                  disabled={readOnly}
             value={exposure.heatFlowDirection}
             onChange={(e) => {
               const dir = e.target.value as (typeof HEAT_FLOW_DIRECTIONS)[number];
@@ -342,7 +360,7 @@ export default function ExposurePane() {
         </label>
         {num('insideSurfaceResistance', { label: 'R_si', unit: 'm²K/W', min: 0, max: 1 }, `Inside surface resistance; ISO 6946 gives ${ISO6946_RSI[exposure.heatFlowDirection]} m²K/W for ${exposure.heatFlowDirection} heat flow`)}
         {num('outsideSurfaceResistance', { label: 'R_se', unit: 'm²K/W', min: 0, max: 1 }, `Outside surface resistance; ISO 6946 gives ${ISO6946_RSE} m²K/W; 0 prescribes the surface at the outdoor temperature`)}
-        {exposure.insideSurfaceResistance !== ISO6946_RSI[exposure.heatFlowDirection] || exposure.outsideSurfaceResistance !== ISO6946_RSE ? (
+        {!readOnly && (exposure.insideSurfaceResistance !== ISO6946_RSI[exposure.heatFlowDirection] || exposure.outsideSurfaceResistance !== ISO6946_RSE) ? (
           <button
             type="button"
             className="self-end px-2 py-1 rounded border border-line bg-panel hover:bg-paper text-xs"
@@ -354,8 +372,10 @@ export default function ExposurePane() {
           >
             ISO 6946 values
           </button>
-        ) : (
+        ) : exposure.insideSurfaceResistance === ISO6946_RSI[exposure.heatFlowDirection] && exposure.outsideSurfaceResistance === ISO6946_RSE ? (
           <span className="self-end text-xs text-ink-faint pb-1.5">ISO 6946 values</span>
+        ) : (
+          <span className="self-end text-xs text-ink-faint pb-1.5">Own values</span>
         )}
       </Group>
 
@@ -364,7 +384,7 @@ export default function ExposurePane() {
         {num('warmupDays', warmupRule(exposure.days), 'Days run first and left out of the figures, so the wall forgets its starting state')}
         <label className="flex flex-col gap-0.5">
           <span className="text-xs text-ink-soft">Time step</span>
-          <select className="rounded border border-line px-2 py-1 bg-panel tabular" value={exposure.timeStep} onChange={(e) => setExposure({ timeStep: Number(e.target.value) })}>
+          <select className="rounded border border-line px-2 py-1 bg-panel tabular disabled:bg-paper disabled:text-ink-soft" disabled={readOnly} value={exposure.timeStep} onChange={(e) => setExposure({ timeStep: Number(e.target.value) })}>
             {[60, 120, 300, 600, 900, 1800, 3600].map((s) => (
               <option key={s} value={s}>
                 {s >= 60 ? `${s / 60} min` : `${s} s`}
@@ -374,9 +394,10 @@ export default function ExposurePane() {
         </label>
         {num('maxCellSize', { label: 'Largest cell', unit: 'mm', min: 0.5, max: 100, scale: 1000 }, 'The mesh puts at least 4 cells in each layer and no cell thicker than this')}
         <p className="w-full text-xs text-ink-faint">
-          {totalDays} days in all; {totalDays <= 7 ? 'runs by itself after each edit.' : 'longer than 7 days: press Run after an edit.'}
+          {totalDays} days in all; {readOnly ? (totalDays <= 7 ? 'run once on opening; press Run to run them again.' : 'press Run to run them in your browser.') : totalDays <= 7 ? 'runs by itself after each edit.' : 'longer than 7 days: press Run after an edit.'}
         </p>
       </Group>
     </section>
+    </ReadOnly.Provider>
   );
 }

@@ -1,5 +1,5 @@
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
-import type { LibraryMaterial } from '../../lib/materials/library';
+import { fetchMaterials, type LibraryMaterial } from '../../lib/materials/library';
 import { CLASS_LABELS } from '../../lib/materials/builtin';
 import { MATERIAL_CLASSES } from '../../lib/schemas/workbench';
 import { MAT_BG } from './materialStyle';
@@ -11,13 +11,9 @@ const cache = new Map<number, Promise<LibraryMaterial[]>>();
 export function loadMaterials(teamId: number): Promise<LibraryMaterial[]> {
   let p = cache.get(teamId);
   if (!p) {
-    p = fetch(`/api/materials?teamId=${teamId}`, { headers: { accept: 'application/json' } }).then(async (r) => {
-      if (!r.ok) {
-        cache.delete(teamId);
-        const body = (await r.json().catch(() => null)) as { error?: { message?: string } } | null;
-        throw new Error(body?.error?.message ?? `The library could not be loaded (HTTP ${r.status}).`);
-      }
-      return ((await r.json()) as { materials: LibraryMaterial[] }).materials;
+    p = fetchMaterials(teamId).catch((err: unknown) => {
+      cache.delete(teamId);
+      throw err;
     });
     cache.set(teamId, p);
   }

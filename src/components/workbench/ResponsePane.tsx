@@ -66,12 +66,22 @@ function withTitle(source: HTMLCanvasElement, title: string): string {
   return c.toDataURL('image/png');
 }
 
-export default function ResponsePane() {
+/**
+ * who looks at the pane: 'edit' (engineer or admin: runs can be kept with the saved revision),
+ * 'checker' (runs in the browser only; keeping needs the edit role), 'guest' (the Shared view:
+ * an issued revision run in the guest's browser, nothing is kept). with no mode, a pane without
+ * an assembly in the store is the guest's.
+ */
+export type ResponseMode = 'edit' | 'checker' | 'guest';
+
+export default function ResponsePane({ mode: given }: { mode?: ResponseMode } = {}) {
   const doc = useWorkbench((s) => s.doc);
   const upload = useWorkbench((s) => s.upload);
   const base = useWorkbench((s) => s.base);
   const assembly = useWorkbench((s) => s.assembly);
   const dirty = useWorkbench((s) => s.dirty);
+  const mode: ResponseMode = given ?? (assembly ? 'edit' : 'guest');
+  const canKeep = mode === 'edit';
 
   const runner = useRef<Runner | null>(null);
   const lastStart = useRef(0);
@@ -249,7 +259,15 @@ export default function ResponsePane() {
       {shown ? (
         <>
           <div className="flex flex-wrap items-center gap-2 text-xs" data-testid="run-state">
-            {runIsOfRevision || saved.state === 'saved' ? null : (
+            {mode === 'guest' ? (
+              <span className="rounded bg-paper px-2 py-0.5 font-semibold text-ink-soft" data-testid="run-origin" title="Nothing of this run is sent or stored">
+                Computed in your browser from the issued revision
+              </span>
+            ) : mode === 'checker' ? (
+              <span className="rounded bg-paper px-2 py-0.5 font-semibold text-ink-soft" data-testid="run-origin" title="Runs are kept with a revision by engineers and admins">
+                Computed in your browser from {base ? `revision ${base.number}` : 'the build-up'}; not kept
+              </span>
+            ) : runIsOfRevision || saved.state === 'saved' ? null : (
               <span className="rounded bg-warn-soft text-warn px-2 py-0.5 font-semibold" title="This run lives in this browser tab only">
                 Unsaved run
               </span>
@@ -257,12 +275,12 @@ export default function ResponsePane() {
             <span className="text-ink-soft tabular">
               {shown.run.steps.toLocaleString('en-GB')} steps in {shown.run.elapsedMs.toFixed(1)} ms (engine), figures {shown.wallMs.toFixed(0)} ms after the request
             </span>
-            {base && runIsOfRevision && saved.state !== 'saved' ? (
+            {canKeep && base && runIsOfRevision && saved.state !== 'saved' ? (
               <button type="button" className="px-2 py-0.5 rounded border border-line bg-panel hover:bg-paper" onClick={() => void saveRun()} disabled={saved.state === 'saving'}>
                 {saved.state === 'saving' ? 'Keeping…' : `Keep this run with revision ${base.number}`}
               </button>
             ) : null}
-            {base && !runIsOfRevision && saved.state !== 'saved' ? <span className="text-ink-faint">Save the revision to keep runs with it.</span> : null}
+            {canKeep && base && !runIsOfRevision && saved.state !== 'saved' ? <span className="text-ink-faint">Save the revision to keep runs with it.</span> : null}
             {saved.state === 'saved' ? <span className="text-ok" data-testid="run-saved">Kept with revision {saved.revision} (run {saved.id}).</span> : null}
             {saved.state === 'error' ? <span className="text-danger" role="alert">{saved.message}</span> : null}
           </div>

@@ -332,10 +332,10 @@ export default function Workbench({ assemblyId }: { assemblyId: number }) {
         }
         <div className="grid gap-4 xl:grid-cols-[minmax(0,24rem)_minmax(0,1fr)] items-start">
           <div className="rounded-md border border-line bg-paper p-3">
-            <ExposurePane />
+            <ExposurePane readOnly={readOnly} />
           </div>
           <div className="rounded-md border border-line bg-paper p-3 min-w-0">
-            <ResponsePane />
+            <ResponsePane mode={readOnly ? 'checker' : 'edit'} />
           </div>
         </div>
       </div>

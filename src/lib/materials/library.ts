@@ -11,6 +11,14 @@ export interface LibraryMaterial extends MaterialFields {
   builtinKey: string | null;
 }
 
+/** the built-ins and the team's own, as GET /api/materials answers; a failed answer throws its message */
+export async function fetchMaterials(teamId: number): Promise<LibraryMaterial[]> {
+  const r = await fetch(`/api/materials?teamId=${teamId}`, { headers: { accept: 'application/json' } });
+  const body = (await r.json().catch(() => null)) as { materials?: LibraryMaterial[]; error?: { message?: string } } | null;
+  if (!r.ok || !body?.materials) throw new Error(body?.error?.message ?? `The library could not be loaded (HTTP ${r.status}).`);
+  return body.materials;
+}
+
 /** what a layer records as its origin: "builtin:<key>" or "team:<id>" */
 export function materialRef(m: Pick<LibraryMaterial, 'id' | 'builtinKey'>): string {
   return m.builtinKey ? `builtin:${m.builtinKey}` : `team:${m.id}`;
