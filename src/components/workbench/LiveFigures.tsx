@@ -1,4 +1,4 @@
-import { memo } from 'react';
+import { memo, useEffect, useRef, useState, type ReactNode } from 'react';
 import type { Figures } from '../../lib/thermal/index.ts';
 import type { DocLayer, Exposure } from '../../lib/schemas/workbench';
 import { useWorkbench } from '../../lib/workbench/store';
@@ -31,6 +31,58 @@ function Figure({ label, hint, value, unit, testId, align = 'left' }: { label: s
 
 /** the unit under a column heading */
 const Unit = ({ children }: { children: string }) => <span className="block text-[10px] font-normal text-ink-faint">{children}</span>;
+
+/**
+ * a box that scrolls sideways when its table is wider than it: it then shows a fade on the side
+ * with more columns and a line saying so, and takes keyboard focus so the arrow keys scroll it
+ */
+function ScrollBox({ label, children }: { label: string; children: ReactNode }) {
+  const box = useRef<HTMLDivElement>(null);
+  const [more, setMore] = useState({ left: false, right: false });
+  useEffect(() => {
+    const el = box.current;
+    if (!el) return;
+    const measure = () => {
+      const left = el.scrollLeft > 1;
+      const right = el.scrollLeft + el.clientWidth < el.scrollWidth - 1;
+      setMore((m) => (m.left === left && m.right === right ? m : { left, right }));
+    };
+    measure();
+    const ro = new ResizeObserver(measure);
+    ro.observe(el);
+    if (el.firstElementChild) ro.observe(el.firstElementChild);
+    el.addEventListener('scroll', measure, { passive: true });
+    return () => {
+      ro.disconnect();
+      el.removeEventListener('scroll', measure);
+    };
+  }, []);
+  const scrolls = more.left || more.right;
+  return (
+    <div>
+      <div className="relative rounded border border-line bg-panel">
+        <div
+          ref={box}
+          className="overflow-x-auto"
+          data-testid="layer-figures-box"
+          data-overflow={scrolls ? 'true' : 'false'}
+          tabIndex={scrolls ? 0 : undefined}
+          role={scrolls ? 'region' : undefined}
+          aria-label={scrolls ? `${label}, scrolls sideways` : undefined}
+        >
+          {children}
+        </div>
+        {more.left ? <div aria-hidden="true" className="pointer-events-none absolute inset-y-0 left-0 w-6 rounded-l bg-linear-to-r from-ink/15 to-transparent" /> : null}
+        {more.right ? <div aria-hidden="true" className="pointer-events-none absolute inset-y-0 right-0 w-6 rounded-r bg-linear-to-l from-ink/15 to-transparent" /> : null}
+      </div>
+      {scrolls ? (
+        <p className="mt-1 text-right text-xs text-ink-faint" data-testid="layer-figures-scroll-note">
+          {more.right ? 'More columns to the right: scroll the table sideways →' : '← more columns to the left'}
+        </p>
+      ) : null}
+    </div>
+  );
+}
 
 /** the figures of the build-up, recomputed by analyse() on every edit */
 function LiveFigures({ layers, exposure, figures }: Props) {
@@ -94,7 +146,7 @@ function LiveFigures({ layers, exposure, figures }: Props) {
         />
       </dl>
 
-      <div className="overflow-x-auto rounded border border-line bg-panel">
+      <ScrollBox label="Figures per layer">
         <table className="w-full text-sm tabular" aria-label="Figures per layer">
           <thead>
             <tr className="border-b border-line text-left text-xs text-ink-soft">
@@ -153,7 +205,7 @@ function LiveFigures({ layers, exposure, figures }: Props) {
                   className={`border-b border-line/60 last:border-0 ${highlightedId === layer.id ? 'bg-accent-soft' : ''}`}
                 >
                   <td className="px-2 py-1 text-ink-faint">{i + 1}</td>
-                  <td className="max-w-56 truncate px-2 py-1" title={layer.name}>
+                  <td className="max-w-48 truncate px-2 py-1" title={layer.name}>
                     {layer.name}
                   </td>
                   <td className="px-2 py-1 text-right">{mm(layer.thickness)}</td>
@@ -168,7 +220,7 @@ function LiveFigures({ layers, exposure, figures }: Props) {
             })}
           </tbody>
         </table>
-      </div>
+      </ScrollBox>
     </section>
   );
 }

@@ -335,6 +335,12 @@ export default function ResponsePane({ mode: given }: { mode?: ResponseMode } = 
   );
 }
 
+/** the width of a box's content, px: its client width less its left and right padding */
+function contentWidth(el: HTMLElement): number {
+  const cs = getComputedStyle(el);
+  return Math.floor(el.clientWidth - parseFloat(cs.paddingLeft || '0') - parseFloat(cs.paddingRight || '0'));
+}
+
 /** playback of one run: the profile canvas, the traces, the controls */
 function Playback({ shown }: { shown: Shown }) {
   const { run, classes } = shown;
@@ -383,13 +389,13 @@ function Playback({ shown }: { shown: Shown }) {
     }
   }, [run, classes, range, hours]);
 
-  // canvas size follows its box
+  // canvas size follows its box (the width inside its padding, so the canvas never spills over the border)
   useEffect(() => {
     const box = profileBox.current;
     const c = canvas.current;
     if (!box || !c) return;
     const fit = () => {
-      const w = Math.max(320, Math.floor(box.clientWidth));
+      const w = Math.max(320, contentWidth(box));
       const h = 280;
       const dpr = window.devicePixelRatio || 1;
       size.current = { w, h };
@@ -410,7 +416,7 @@ function Playback({ shown }: { shown: Shown }) {
   // the traces: made once per shape of the result, then fed with setData
   useEffect(() => {
     if (!tempBox.current || !fluxBox.current) return;
-    const w = Math.max(320, Math.floor(profileBox.current?.clientWidth ?? 600));
+    const w = Math.max(320, profileBox.current ? contentWidth(profileBox.current) : 600);
     const faint = css('--color-ink-faint', '#8b857a');
     const axis = { stroke: css('--color-ink-soft', '#5d5850'), grid: { stroke: css('--color-line', '#dedad2'), width: 1 }, ticks: { stroke: css('--color-line', '#dedad2') } };
     const hourAxis = { ...axis, label: 'hours from the start of day 1', values: (_u: uPlot, v: number[]) => v.map((x) => `${x}`) };
