@@ -4,16 +4,9 @@ import Field from '../team/Field';
 import StateBadge from '../team/StateBadge';
 import { formatWhen } from '../team/format';
 import CreateForm from './CreateForm';
+import type { AssemblyRow as ServerAssemblyRow, Wire } from '../../lib/schemas/rows';
 
-interface AssemblyRow {
-  id: number;
-  name: string;
-  element: 'wall' | 'roof' | 'floor';
-  description: string;
-  headNumber: number | null;
-  headState: string | null;
-  updatedAt: string;
-}
+type AssemblyRow = Wire<ServerAssemblyRow>;
 
 const ELEMENT_LABEL = { wall: 'Wall', roof: 'Roof', floor: 'Floor' };
 

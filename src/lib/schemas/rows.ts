@@ -4,8 +4,9 @@
 // The services build rows with Dates; an island reads the same row from JSON, where each
 // Date has become an ISO string: `Wire<JobRow>`.
 import type { RevisionState, Role } from '../server/db/schema';
+import type { Element } from '../server/services/defaultDocument';
 
-export type { RevisionState, Role };
+export type { Element, RevisionState, Role };
 
 /** one page of a list, as every list endpoint answers */
 export interface Page<T> {
@@ -29,6 +30,16 @@ export interface JobRow {
   assemblyCount: number;
   createdByName: string | null;
   createdAt: Date;
+  updatedAt: Date;
+}
+
+export interface AssemblyRow {
+  id: number;
+  name: string;
+  element: Element;
+  description: string;
+  headNumber: number | null;
+  headState: string | null;
   updatedAt: Date;
 }
 

@@ -3,7 +3,7 @@ import { and, count, eq, like, or, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { assemblies, jobs, revisions, revisionEvents, users } from '../db/schema';
 import type { ListQuery } from '../../schemas/api';
-import type { JobRow } from '../../schemas/rows';
+import type { AssemblyRow, JobRow } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, type Page } from './list';
 import { defaultDocument, type Element } from './defaultDocument';
 
@@ -63,16 +63,6 @@ export async function createJob(
 
 export async function updateJob(jobId: number, input: Partial<{ name: string; reference: string; client: string; location: string; notes: string }>) {
   await db.update(jobs).set({ ...input, updatedAt: new Date() }).where(eq(jobs.id, jobId));
-}
-
-export interface AssemblyRow {
-  id: number;
-  name: string;
-  element: Element;
-  description: string;
-  headNumber: number | null;
-  headState: string | null;
-  updatedAt: Date;
 }
 
 const headNumber = sql<number | null>`(select max(r.number) from ${revisions} r where r.assembly_id = ${assemblies.id})`;
