@@ -3,7 +3,7 @@ import { db } from '../db';
 import { assemblies, auditLog, revisions, shareLinks, users } from '../db/schema';
 import type { ListQuery } from '../../schemas/api';
 import type { AuditRow } from '../../schemas/rows';
-import { likePattern, offsetOf, orderFor, type Page } from './list';
+import { likePattern, offsetOf, orderFor, pageOf, type Page } from './list';
 
 const PERSON_ACTIONS = new Set(['role_changed', 'member_removed', 'member_left']);
 
@@ -65,5 +65,5 @@ export async function listAudit(teamId: number, memberEmails: string[], q: ListQ
     .limit(q.pageSize)
     .offset(offsetOf(q));
   const [{ n }] = await db.select({ n: count() }).from(auditLog).leftJoin(users, eq(users.id, auditLog.actorId)).where(where);
-  return { items: await describeTargets(items), page: q.page, pageSize: q.pageSize, total: n };
+  return pageOf(await describeTargets(items), q, n);
 }

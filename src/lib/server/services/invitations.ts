@@ -9,7 +9,7 @@ import { sendMail } from '../mail';
 import { hashToken, tokenPair, DAY_MS } from '../tokens';
 import type { ListQuery } from '../../schemas/api';
 import type { InvitationRow, InvitationStatus } from '../../schemas/rows';
-import { likePattern, offsetOf, orderFor, type Page } from './list';
+import { likePattern, offsetOf, orderFor, pageOf, type Page } from './list';
 import { fail, type Fail } from './teams';
 
 export const INVITATION_LIFETIME_MS = 7 * DAY_MS;
@@ -75,7 +75,7 @@ export async function listInvitations(teamId: number, q: ListQuery): Promise<Pag
     .limit(q.pageSize)
     .offset(offsetOf(q));
   const [{ n }] = await db.select({ n: count() }).from(invitations).where(where);
-  return { items: rows.map((r) => ({ ...r, status: statusOf(r) })), page: q.page, pageSize: q.pageSize, total: n };
+  return pageOf(rows.map((r) => ({ ...r, status: statusOf(r) })), q, n);
 }
 
 export async function revokeInvitation(invitationId: number, actorId: string, ip = ''): Promise<{ ok: true } | Fail> {

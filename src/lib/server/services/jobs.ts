@@ -4,7 +4,7 @@ import { db } from '../db';
 import { assemblies, jobs, revisions, revisionEvents, users } from '../db/schema';
 import type { ListQuery } from '../../schemas/api';
 import type { AssemblyRow, JobRow } from '../../schemas/rows';
-import { likePattern, offsetOf, orderFor, type Page } from './list';
+import { likePattern, offsetOf, orderFor, pageOf, type Page } from './list';
 import { defaultDocument, type Element } from './defaultDocument';
 
 const assemblyCount = sql<number>`(select count(*) from ${assemblies} where ${assemblies.jobId} = ${jobs.id})`.mapWith(Number);
@@ -44,7 +44,7 @@ export async function listJobs(teamId: number, q: ListQuery): Promise<Page<JobRo
     .limit(q.pageSize)
     .offset(offsetOf(q));
   const [{ n }] = await db.select({ n: count() }).from(jobs).where(where);
-  return { items, page: q.page, pageSize: q.pageSize, total: n };
+  return pageOf(items, q, n);
 }
 
 export async function getJob(jobId: number) {
@@ -87,7 +87,7 @@ export async function listAssemblies(jobId: number, q: ListQuery): Promise<Page<
     .limit(q.pageSize)
     .offset(offsetOf(q));
   const [{ n }] = await db.select({ n: count() }).from(assemblies).where(where);
-  return { items: items.map((r) => ({ ...r, headNumber: r.headNumber === null ? null : Number(r.headNumber) })), page: q.page, pageSize: q.pageSize, total: n };
+  return pageOf(items.map((r) => ({ ...r, headNumber: r.headNumber === null ? null : Number(r.headNumber) })), q, n);
 }
 
 /** a new assembly with revision 1 (the default build-up for its element) */

@@ -1,7 +1,14 @@
 import { asc, desc, type SQL, type AnyColumn } from 'drizzle-orm';
 import type { ListQuery } from '../../schemas/api';
 
-export type { Page } from '../../schemas/rows';
+import type { Page } from '../../schemas/rows';
+
+export type { Page };
+
+/** the answer of a list endpoint: this page's items, where the page is, and how many there are in all */
+export function pageOf<T>(items: T[], q: ListQuery, total: number): Page<T> {
+  return { items, page: q.page, pageSize: q.pageSize, total };
+}
 
 /** ORDER BY for a "key" or "-key" sort, falling back to the first column */
 export function orderFor(sort: string, columns: Record<string, AnyColumn | SQL>): SQL[] {

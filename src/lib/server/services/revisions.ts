@@ -7,7 +7,7 @@ import { audit } from '../audit';
 import type { ListQuery } from '../../schemas/api';
 import type { RevisionRow } from '../../schemas/rows';
 import type { WorkbenchDocument } from '../../schemas/workbench';
-import { likePattern, offsetOf, orderFor, type Page } from './list';
+import { likePattern, offsetOf, orderFor, pageOf, type Page } from './list';
 import { fail, type Fail } from './teams';
 
 export interface HeadRevision {
@@ -104,7 +104,7 @@ export async function listRevisions(assemblyId: number, q: ListQuery): Promise<P
     .limit(q.pageSize)
     .offset(offsetOf(q));
   const [{ n }] = await db.select({ n: count() }).from(revisions).leftJoin(users, eq(users.id, revisions.authorId)).where(where);
-  return { items, page: q.page, pageSize: q.pageSize, total: n };
+  return pageOf(items, q, n);
 }
 
 export async function getRevision(revisionId: number) {

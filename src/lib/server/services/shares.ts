@@ -8,7 +8,7 @@ import { audit } from '../audit';
 import { hashToken, tokenPair, DAY_MS } from '../tokens';
 import type { ListQuery } from '../../schemas/api';
 import type { ShareRow } from '../../schemas/rows';
-import { likePattern, offsetOf, orderFor, type Page } from './list';
+import { likePattern, offsetOf, orderFor, pageOf, type Page } from './list';
 import { fail, type Fail } from './teams';
 import { runsOf } from './revisions';
 
@@ -85,7 +85,7 @@ export async function listShares(teamId: number, q: ListQuery, revisionId?: numb
     .innerJoin(assemblies, eq(assemblies.id, revisions.assemblyId))
     .innerJoin(jobs, eq(jobs.id, assemblies.jobId))
     .where(where);
-  return { items: rows.map((r) => ({ ...r, status: statusOf(r) })), page: q.page, pageSize: q.pageSize, total: n };
+  return pageOf(rows.map((r) => ({ ...r, status: statusOf(r) })), q, n);
 }
 
 export async function teamOfShare(shareId: number): Promise<number | null> {

@@ -5,7 +5,7 @@ import { memberships, teams, users, type Role } from '../db/schema';
 import { audit } from '../audit';
 import { teamBody, type ListQuery } from '../../schemas/api';
 import type { MemberRow } from '../../schemas/rows';
-import { likePattern, offsetOf, orderFor, type Page } from './list';
+import { likePattern, offsetOf, orderFor, pageOf, type Page } from './list';
 
 export type Fail = { ok: false; status: number; code: string; message: string };
 export const fail = (status: number, code: string, message: string): Fail => ({ ok: false, status, code, message });
@@ -43,7 +43,7 @@ export async function listMembers(teamId: number, q: ListQuery): Promise<Page<Me
     .limit(q.pageSize)
     .offset(offsetOf(q));
   const [{ n }] = await db.select({ n: count() }).from(memberships).innerJoin(users, eq(users.id, memberships.userId)).where(where);
-  return { items, page: q.page, pageSize: q.pageSize, total: n };
+  return pageOf(items, q, n);
 }
 
 type Exec = Pick<typeof db, 'select'>;
