@@ -150,7 +150,8 @@ export async function addComment(revisionId: number, userId: string, body: strin
 
 // --- the check workflow ---
 
-export type Target = 'in_check' | 'checked' | 'sent_back' | 'issued' | 'draft';
+/** a state a move leads to: every state is one (draft, when withdrawn from the check) */
+export type Target = RevisionState;
 
 interface Rule {
   from: RevisionState[];
