@@ -6,7 +6,6 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { readFileSync, rmSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
-import { eq } from 'drizzle-orm';
 import type { BenchRow } from './engine.ts';
 
 const GROUP = 'browser (headless Chromium)';
@@ -71,13 +70,11 @@ export async function browserBench(): Promise<BenchRow[]> {
   const own = process.env.WALLPULSE_BASE_URL && process.env.DATABASE_URL ? null : await startApp();
   // imported after the environment is set: the helpers read it
   const { launch, openPage, baseUrl } = await import('../support/browser.ts');
-  const { testDb, closeTestDb, sessionFor } = await import('../support/db.ts');
-  const { assemblies } = await import('../../src/lib/server/db/schema.ts');
+  const { closeTestDb, sessionFor, demoAssembly, DEMO_HEAVY_WALL } = await import('../support/db.ts');
   const rows: BenchRow[] = [];
   const { browser, close } = await launch();
   try {
-    const found = await testDb().select({ id: assemblies.id }).from(assemblies).where(eq(assemblies.name, 'West wall, brick with external insulation')).limit(1);
-    if (!found[0]) throw new Error('the demo assembly is missing');
+    const assemblyId = await demoAssembly(DEMO_HEAVY_WALL);
     const { page, context } = await openPage(browser, { userId: 'demo-engineer' });
     // tsx keeps function names with a __name helper that the page does not have
     await page.addInitScript({ content: 'window.__name = (f) => f;' });
@@ -86,7 +83,7 @@ export async function browserBench(): Promise<BenchRow[]> {
       w.__longTasks = [];
       new PerformanceObserver((l) => l.getEntries().forEach((e) => w.__longTasks.push(e.duration))).observe({ type: 'longtask', buffered: true });
     });
-    await page.goto(`/assemblies/${found[0].id}`);
+    await page.goto(`/assemblies/${assemblyId}`);
     const pane = page.getByTestId('response-pane');
     await pane.getByTestId('figures').waitFor();
     await page.waitForTimeout(500);

@@ -1,24 +1,12 @@
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { baseUrl, useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
-import { sessionFor, SESSION_COOKIE, testDb } from '../support/db';
+import { sessionFor, SESSION_COOKIE, testDb, demoAssembly } from '../support/db';
 import { assemblies, jobs, memberships, revisions, teams, users } from '../../src/lib/server/db/schema';
 import { DEMO_ASSEMBLIES } from '../../src/lib/server/seed/demoJob';
 
 const browser = useBrowser();
-
-/** the id of a demo assembly of the Harrow Lane job, by its name */
-async function demoAssembly(name: string): Promise<number> {
-  const rows = await testDb()
-    .select({ id: assemblies.id })
-    .from(assemblies)
-    .innerJoin(jobs, eq(jobs.id, assemblies.jobId))
-    .where(and(eq(jobs.name, 'Harrow Lane Library re-cladding'), eq(assemblies.name, name)))
-    .limit(1);
-  if (!rows[0]) throw new Error(`the demo assembly “${name}” is not seeded`);
-  return rows[0].id;
-}
 
 const ids = (page: Page) => page.getByTestId('layer-card').evaluateAll((els) => els.map((e) => e.getAttribute('data-layer-id')));
 const names = (page: Page) => page.getByTestId('layer-card').evaluateAll((els) => els.map((e) => e.getAttribute('data-name')));

@@ -2,17 +2,14 @@
 // and a guest with a share link runs the issued revision with nothing offered to keep.
 import { describe, it, expect, beforeAll } from 'vitest';
 import { useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
-import { testDb, eq } from '../support/db';
-import { assemblies } from '../../src/lib/server/db/schema';
+import { demoAssembly, DEMO_HEAVY_WALL } from '../support/db';
 import { DEMO, demoTeamId, makeAssembly, makeJob, makeRevision, makeShare, uid } from '../system/teamFixtures';
 
 const browser = useBrowser();
 let assemblyId: number;
 
 beforeAll(async () => {
-  const rows = await testDb().select({ id: assemblies.id }).from(assemblies).where(eq(assemblies.name, 'West wall, brick with external insulation')).limit(1);
-  if (!rows[0]) throw new Error('the demo assembly is missing from the seed');
-  assemblyId = rows[0].id;
+  assemblyId = await demoAssembly(DEMO_HEAVY_WALL);
 });
 
 describe('the workbench for a checker', () => {

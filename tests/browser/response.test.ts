@@ -3,16 +3,13 @@ import { readFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
 import Papa from 'papaparse';
 import { useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
-import { testDb, eq } from '../support/db';
-import { assemblies } from '../../src/lib/server/db/schema';
+import { demoAssembly, DEMO_HEAVY_WALL } from '../support/db';
 
 const browser = useBrowser();
 let assemblyId: number;
 
 beforeAll(async () => {
-  const rows = await testDb().select({ id: assemblies.id }).from(assemblies).where(eq(assemblies.name, 'West wall, brick with external insulation')).limit(1);
-  if (!rows[0]) throw new Error('the demo assembly is missing from the seed');
-  assemblyId = rows[0].id;
+  assemblyId = await demoAssembly(DEMO_HEAVY_WALL);
 });
 
 /** records every main-thread task over 50 ms (the Long Tasks API) from the first script on */

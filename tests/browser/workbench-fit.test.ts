@@ -2,16 +2,13 @@
 // for its box scrolls inside it and says so.
 import { describe, it, expect, beforeAll } from 'vitest';
 import { useBrowser, openPage, screenshot } from '../support/browser';
-import { testDb, eq } from '../support/db';
-import { assemblies } from '../../src/lib/server/db/schema';
+import { demoAssembly, DEMO_HEAVY_WALL } from '../support/db';
 
 const browser = useBrowser();
 let assemblyId: number;
 
 beforeAll(async () => {
-  const rows = await testDb().select({ id: assemblies.id }).from(assemblies).where(eq(assemblies.name, 'West wall, brick with external insulation')).limit(1);
-  if (!rows[0]) throw new Error('the demo assembly is missing from the seed');
-  assemblyId = rows[0].id;
+  assemblyId = await demoAssembly(DEMO_HEAVY_WALL);
 });
 
 describe('the figures per layer under the stack', () => {

@@ -1,7 +1,8 @@
 import { randomBytes } from 'node:crypto';
-import { eq, desc, like } from 'drizzle-orm';
+import { and, eq, desc, like } from 'drizzle-orm';
 import { createDb, type Database } from '../../src/lib/server/db/client';
-import { sessions, smtpInbox } from '../../src/lib/server/db/schema';
+import { assemblies, jobs, sessions, smtpInbox } from '../../src/lib/server/db/schema';
+import { DEMO_JOB_NAME } from '../../src/lib/server/seed/demoJob';
 import { testEnv } from './env';
 
 let cached: { db: Database; close(): Promise<void> } | null = null;
@@ -44,5 +45,20 @@ export async function lastMailTo(address: string, timeoutMs = 10_000) {
     await new Promise((r) => setTimeout(r, 200));
   }
 }
+
+/** the id of one of the seeded demo job's assemblies, by its name */
+export async function demoAssembly(name: string): Promise<number> {
+  const rows = await testDb()
+    .select({ id: assemblies.id })
+    .from(assemblies)
+    .innerJoin(jobs, eq(jobs.id, assemblies.jobId))
+    .where(and(eq(jobs.name, DEMO_JOB_NAME), eq(assemblies.name, name)))
+    .limit(1);
+  if (!rows[0]) throw new Error(`the demo assembly “${name}” is not seeded`);
+  return rows[0].id;
+}
+
+/** the heavy demo wall most browser tests open */
+export const DEMO_HEAVY_WALL = 'West wall, brick with external insulation';
 
 export { eq };
