@@ -1,4 +1,4 @@
-import { useState, type FormEvent, type ReactNode } from 'react';
+import { useState, type SubmitEvent, type ReactNode } from 'react';
 import { errorOf, send } from '../team/format';
 
 interface Props<T> {
@@ -21,7 +21,7 @@ export default function CreateForm<T>({ noun, endpoint, body, next, children }: 
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [message, setMessage] = useState<string | null>(null);
 
-  async function submit(e: FormEvent<HTMLFormElement>) {
+  async function submit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const payload = body(new FormData(e.currentTarget));
     setBusy(true);

@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useState, type FormEvent } from 'react';
+import { useCallback, useEffect, useState, type SubmitEvent } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import DataTable from '../team/DataTable';
 import StateBadge from '../team/StateBadge';
@@ -127,7 +127,7 @@ export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { 
     setReload((n) => n + 1);
   }
 
-  async function addComment(e: FormEvent) {
+  async function addComment(e: SubmitEvent) {
     e.preventDefault();
     if (!detail) return;
     if (!comment.trim()) {
@@ -147,7 +147,7 @@ export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { 
     setReload((n) => n + 1);
   }
 
-  async function makeShare(e: FormEvent) {
+  async function makeShare(e: SubmitEvent) {
     e.preventDefault();
     if (!detail) return;
     const days = shareDays.trim() === '' ? null : Number(shareDays);

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import DataTable from './DataTable';
 import Field from './Field';
@@ -82,7 +82,7 @@ export default function TeamScreen({ teamId, myUserId, role }: { teamId: number;
     if (ok && self) window.location.href = '/jobs';
   }
 
-  async function inviteSubmit(e: FormEvent<HTMLFormElement>) {
+  async function inviteSubmit(e: SubmitEvent<HTMLFormElement>) {
     e.preventDefault();
     const formEl = e.currentTarget;
     const form = new FormData(formEl);
