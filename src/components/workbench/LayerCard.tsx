@@ -64,6 +64,8 @@ const FieldInput = memo(function FieldInput({
         spellCheck={field === 'name'}
         readOnly={readOnly}
         value={value}
+        // a long material name is cut by the box; the tooltip shows it whole
+        title={field === 'name' ? value : undefined}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : undefined}
         data-field={field}
