@@ -37,7 +37,7 @@ export function ensureDebianPackage(binary: string, pkg: string): string {
   if (update.status !== 0) throw new Error('apt-get update failed');
   const install = spawnSync(
     'apt-get',
-    ['install', '-y', '-qq', '--no-install-recommends', '-o', 'Dpkg::Options::=--force-confdef', pkg],
+    ['install', '-y', '-qq', '-o', 'Dpkg::Options::=--force-confdef', pkg],
     { stdio: 'inherit', env },
   );
   if (install.status !== 0) throw new Error(`apt-get install ${pkg} failed`);
