@@ -1,6 +1,6 @@
 // invitations by e-mail: a link with a 7-day token (only its hash kept) that a new or
 // existing person accepts; accepting with a new account proves the address.
-import { and, count, desc, eq, gt, isNull, like } from 'drizzle-orm';
+import { and, count, desc, eq, gt, isNull, like, ne } from 'drizzle-orm';
 import { PUBLIC_BASE_URL } from 'astro:env/server';
 import { db } from '../db';
 import { invitations, memberships, teams, users, type Role } from '../db/schema';
@@ -23,11 +23,6 @@ export async function invite(teamId: number, actor: { id: string; name: string }
     .limit(1);
   if (already[0]) return fail(409, 'already_member', `${email} is already a member of this team.`);
   const team = (await db.select({ name: teams.name }).from(teams).where(eq(teams.id, teamId)).limit(1))[0];
-  // a new invitation replaces any open one to the same address
-  await db
-    .update(invitations)
-    .set({ revokedAt: new Date() })
-    .where(and(eq(invitations.teamId, teamId), eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
   const { token, hash } = tokenPair();
   const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_MS);
   const [row] = await db.insert(invitations).values({ teamId, email, role, tokenHash: hash, invitedBy: actor.id, expiresAt }).$returningId();
@@ -44,6 +39,14 @@ export async function invite(teamId: number, actor: { id: string; name: string }
     await db.update(invitations).set({ revokedAt: new Date() }).where(eq(invitations.id, row.id));
     return fail(503, 'mail_failed', `The invitation to ${email} could not be sent: the mail server did not answer. Try again in a minute.`);
   }
+  // a new invitation replaces any open one to the same address, once it has gone out: when the
+  // mail fails, an earlier invitation the person did receive stays usable
+  await db
+    .update(invitations)
+    .set({ revokedAt: new Date() })
+    .where(
+      and(eq(invitations.teamId, teamId), eq(invitations.email, email), ne(invitations.id, row.id), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)),
+    );
   await audit({ action: 'invitation_sent', teamId, actorId: actor.id, target: email, detail: { role, invitationId: row.id }, ip });
   return { ok: true, id: row.id };
 }
