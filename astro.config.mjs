@@ -24,8 +24,10 @@ export default defineConfig({
     schema: {
       DATABASE_URL: envField.string({ context: 'server', access: 'secret' }),
       SMTP_URL: envField.string({ context: 'server', access: 'secret', default: 'smtp://127.0.0.1:2525' }),
-      MAIL_FROM: envField.string({ context: 'server', access: 'public', default: 'Wallpulse <no-reply@wallpulse.local>' }),
-      PUBLIC_BASE_URL: envField.string({ context: 'server', access: 'public', default: 'http://127.0.0.1:4321' }),
+      // not secrets, but astro inlines "public" server variables at build time; these must be read when
+      // the server starts, so that PORT or PUBLIC_BASE_URL given to `npm start` reach the e-mailed links
+      MAIL_FROM: envField.string({ context: 'server', access: 'secret', default: 'Wallpulse <no-reply@wallpulse.local>' }),
+      PUBLIC_BASE_URL: envField.string({ context: 'server', access: 'secret', default: 'http://127.0.0.1:4321' }),
     },
     validateSecrets: false,
   },

@@ -2,7 +2,7 @@
 // comments and marks the engineer's revision checked, the engineer issues and shares it,
 // and a signed-out browser opens the link and sees the same figures.
 import { describe, it, expect } from 'vitest';
-import { useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
+import { baseUrl, useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
 import { lastMailTo } from '../support/db';
 import { DEMO, call, demoTeamId, smallDocument, uid } from '../system/teamFixtures';
 
@@ -38,8 +38,10 @@ describe('check and share, in the browser', () => {
     // 2. the checker opens the mailed link in their own browser and makes an account
     const mail = await lastMailTo(checkerEmail);
     const inviteLink = mail.textBody.match(/https?:\/\/\S+\/invite\/[A-Za-z0-9_-]+/)![0];
+    // the link names the address the app runs at (PUBLIC_BASE_URL, read when the server starts)
+    expect(inviteLink.startsWith(`${baseUrl()}/invite/`)).toBe(true);
     const checker = await openPage(browser());
-    await checker.page.goto(new URL(inviteLink).pathname);
+    await checker.page.goto(inviteLink);
     await checker.page.getByLabel('Name').fill('Ines Varga');
     await checker.page.getByLabel('Password').fill('a checker passphrase');
     await checker.page.getByRole('button', { name: 'Create account and join' }).click();
