@@ -5,7 +5,7 @@
 import { create } from 'zustand';
 import { analyse, type Figures } from '../thermal/index.ts';
 import type { ModelInput } from '../schemas/model';
-import { toModel, type DocLayer, type Exposure, type Indoor, type Outdoor, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench';
+import { defaultExposure, toModel, type DocLayer, type Exposure, type Indoor, type Outdoor, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench';
 import { materialRef, startingThickness, type LibraryMaterial } from '../materials/library';
 import { draftKey, parseLayerField, type LayerField } from './fields';
 
@@ -92,18 +92,7 @@ export function newLayerId(): string {
 const emptyDoc = (): WorkbenchDocument => ({
   version: 1,
   layers: [],
-  exposure: {
-    outdoor: { mode: 'sine', mean: 22, swing: 12, peakHour: 15 },
-    indoor: { mode: 'constant', value: 24 },
-    heatFlowDirection: 'horizontal',
-    insideSurfaceResistance: 0.13,
-    outsideSurfaceResistance: 0.04,
-    days: 3,
-    warmupDays: 4,
-    timeStep: 300,
-    maxCellSize: 0.005,
-    indoorRelativeHumidity: 50,
-  },
+  exposure: defaultExposure(),
 });
 
 export const useWorkbench = create<WorkbenchState>()((set, get) => {
