@@ -122,7 +122,7 @@ export async function startMariaDb(opts: MariaOptions): Promise<MariaServer> {
       if (Date.now() - started > 30_000) throw new Error('MariaDB did not answer within 30 s');
       await sleep(100);
     }
-    log(`MariaDB ${owned ? 'started' : 'reused'} on 127.0.0.1:${opts.port} (pid ${pid})`);
+    log(`MariaDB started on 127.0.0.1:${opts.port} (pid ${pid})`);
   } else {
     log(`reusing the MariaDB already running on this data folder (pid ${pid})`);
   }
