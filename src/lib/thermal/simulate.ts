@@ -100,24 +100,24 @@ export interface RunState {
   tn: number;
 }
 
-/** first half of a step to tTo: drives, boundary terms and the surface temperatures before it */
-export function beginStep(st: RunState, s: Stepping, tTo: number): void {
-  const T = st.temperature;
-  const last = T.length - 1;
+/** first half of a step to tTo: drives and boundary terms, given the surface temperatures before it */
+export function beginStepWith(st: RunState, s: Stepping, tTo: number, t0: number, t1: number, tm: number, tn: number): void {
   st.oAfter = drivingTemperature(st.outside, tTo);
   st.iAfter = drivingTemperature(st.inside, tTo);
   st.b0 = boundaryTerm(st.outside, s.theta, st.outsideDrive, st.oAfter);
   st.bN = boundaryTerm(st.inside, s.theta, st.insideDrive, st.iAfter);
-  st.t0 = T[0];
-  st.t1 = T[1];
-  st.tm = T[last - 1];
-  st.tn = T[last];
+  st.t0 = t0;
+  st.t1 = t1;
+  st.tm = tm;
+  st.tn = tn;
 }
 
-/** second half of a step, after the solve: the θ-weighted surface fluxes from each surface node's own equation */
-export function endStep(st: RunState, s: Stepping): void {
-  const T = st.temperature;
-  const last = T.length - 1;
+/**
+ * second half of a step, after the solve, given the surface temperatures after it: the θ-weighted surface fluxes
+ * from each surface node's own energy equation, so the account closes to round-off
+ */
+export function endStepWith(st: RunState, s: Stepping, a0: number, a1: number, am: number, an: number): void {
+  const last = st.temperature.length - 1;
   const mesh = st.mesh;
   const out = st.outside;
   const ins = st.inside;
@@ -129,17 +129,16 @@ export function endStep(st: RunState, s: Stepping): void {
   const iAfter = st.iAfter;
   const t0 = st.t0;
   const tn = st.tn;
-  // surface fluxes from each surface node's own energy equation, so the account closes to round-off
   let qo: number;
   if (out.prescribed) {
     const g = mesh.conductance[0];
-    qo = (mesh.capacity[0] * (T[0] - t0)) / dt + g * (theta * (T[0] - T[1]) + (1 - theta) * (t0 - st.t1));
-  } else qo = out.h * (theta * (oAfter - T[0]) + (1 - theta) * (oBefore - t0));
+    qo = (mesh.capacity[0] * (a0 - t0)) / dt + g * (theta * (a0 - a1) + (1 - theta) * (t0 - st.t1));
+  } else qo = out.h * (theta * (oAfter - a0) + (1 - theta) * (oBefore - t0));
   let qi: number;
   if (ins.prescribed) {
     const g = mesh.conductance[last - 1];
-    qi = g * (theta * (T[last - 1] - T[last]) + (1 - theta) * (st.tm - tn)) - (mesh.capacity[last] * (T[last] - tn)) / dt;
-  } else qi = ins.h * (theta * (T[last] - iAfter) + (1 - theta) * (tn - iBefore));
+    qi = g * (theta * (am - an) + (1 - theta) * (st.tm - tn)) - (mesh.capacity[last] * (an - tn)) / dt;
+  } else qi = ins.h * (theta * (an - iAfter) + (1 - theta) * (tn - iBefore));
   st.inOutside += qo * dt;
   st.outInside += qi * dt;
   st.outsideDrive = oAfter;
@@ -148,9 +147,16 @@ export function endStep(st: RunState, s: Stepping): void {
 
 /** advances the state by one step of s to time tTo */
 export function advance(st: RunState, s: Stepping, tTo: number): void {
-  beginStep(st, s, tTo);
-  thetaStep(s.factor, s.matrices.explicit, st.temperature, st.b0, st.bN);
-  endStep(st, s);
+  const T = st.temperature;
+  const last = T.length - 1;
+  beginStepWith(st, s, tTo, T[0], T[1], T[last - 1], T[last]);
+  thetaStep(s.factor, s.matrices.explicit, T, st.b0, st.bN);
+  endStepWith(st, s, T[0], T[1], T[last - 1], T[last]);
+}
+
+/** the stepping a sub-step of kind `which` uses (0 main, 1 backward-euler quarter, 2 half) */
+export function substepping(set: StepSet, which: number): Stepping {
+  return which === 0 ? set.main : which === 1 ? (set.quarter as Stepping) : (set.half as Stepping);
 }
 
 /** a run set up and ready to step: everything simulate() and simulateBatch() share */
@@ -457,6 +463,11 @@ export function finishRun(run: Run, steppingMs: number): Result {
 /** runs the model and returns the contract's Result */
 export function simulate(model: Model, options: SimulateOptions = {}): Result {
   const run = prepareRun(model, options);
+  return finishRun(run, stepRun(run, options));
+}
+
+/** steps a prepared run to its end, recording its outputs; returns the wall time of the stepping, ms */
+export function stepRun(run: Run, options: SimulateOptions = {}): number {
   const every = Math.max(1, Math.floor(options.progressEvery ?? 4096));
   const onProgress = options.onProgress;
   const shouldCancel = options.shouldCancel;
@@ -477,8 +488,7 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
       const subs = SUBSTEPS[kind];
       for (let j = 0; j < subs.length; j++) {
         const [which, f] = subs[j];
-        const s = which === 0 ? set.main : which === 1 ? (set.quarter as Stepping) : (set.half as Stepping);
-        advance(st, s, f === 1 ? tTo : tFrom + f * h);
+        advance(st, substepping(set, which), f === 1 ? tTo : tFrom + f * h);
       }
     }
     if (run.nextOutput < run.outputs && run.nextOutput * run.interval <= tTo + 1e-9 * Math.min(dt, run.interval)) {
@@ -491,5 +501,5 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
   }
   const steppingMs = now() - steppingStarted;
   if (onProgress) onProgress(1);
-  return finishRun(run, steppingMs);
+  return steppingMs;
 }
