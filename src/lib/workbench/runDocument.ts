@@ -2,10 +2,10 @@
 // reported days into flat Float64Arrays (so a worker can transfer them) and compute the
 // figures. pure: the worker, the report page and the tests all call this.
 import { formatPath, parseModel, type ModelData } from '../schemas/model.ts';
-import { workbenchDocumentSchema, toModel, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench.ts';
+import { workbenchDocumentSchema, toModel, effectiveWarmupDays, isRepeatingExposure, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench.ts';
 import { simulate, SimulationCancelled, analyse, compileSignal, signalAt, solAirTemperature } from '../thermal/index.ts';
-import type { Figures as AnalyticFigures } from '../thermal/types.ts';
-import { figures, type RunFigures } from './figures.ts';
+import type { Figures as AnalyticFigures, Result } from '../thermal/types.ts';
+import { figures, type AccuracyEstimate, type RunFigures } from './figures.ts';
 
 const DAY = 86400;
 
@@ -88,21 +88,35 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
   const model = parsed.model;
 
   const steps = Math.ceil(model.duration / model.timeStep - 1e-9);
-  let result;
-  try {
-    result = simulate(model, {
-      onProgress: options.onProgress,
+  const repeating = isRepeatingExposure(doc.exposure);
+  // the share of the work each run takes, for one progress bar over all of them
+  const coarseShare = 0.15;
+  const otherShare = repeating ? 0 : 0.45;
+  const mainShare = 1 - coarseShare - otherShare;
+  const progress = (from: number, share: number) => (options.onProgress ? (f: number) => options.onProgress!(from + share * f) : undefined);
+  const run = (m: ModelData, from: number, share: number) =>
+    simulate(m, {
+      onProgress: progress(from, share),
       shouldCancel: options.shouldCancel,
       // about a hundred progress reports, never fewer than 256 steps apart
       progressEvery: Math.max(256, Math.ceil(steps / 100)),
     });
+  let result: Result;
+  let coarse: Result | null = null;
+  let coarseModel: ModelData | null = null;
+  let other: Result | null = null;
+  try {
+    result = run(model, 0, mainShare);
+    coarseModel = coarserModel(model);
+    coarse = coarseModel ? run(coarseModel, mainShare, coarseShare) : null;
+    if (!repeating) other = run(otherStartModel(model), mainShare + coarseShare, otherShare);
   } catch (e) {
     if (e instanceof SimulationCancelled) return { kind: 'cancelled' };
     throw e;
   }
 
   const s = result.series;
-  const reportStart = doc.exposure.warmupDays * DAY;
+  const reportStart = effectiveWarmupDays(doc.exposure) * DAY;
   let first = 0;
   while (first < s.time.length && s.time[first] < reportStart - 1e-6) first++;
   const nTimes = s.time.length - first;
@@ -140,12 +154,15 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
     interfaceNames,
     uValue: result.steady.uValue,
     analytic: result.periodic,
-    energyBalanceError: result.energy.balanceError,
+    bookkeepingClosure: result.energy.balanceError,
     cells: result.stats.cells,
     timeStep: model.timeStep,
     maxCellSize: doc.exposure.maxCellSize,
     indoorRelativeHumidity: doc.exposure.indoorRelativeHumidity,
-    outdoorPeriodic: out.mode !== 'series',
+    outdoorPeriodic: repeating && out.mode !== 'series',
+    scheme: schemeOf(result),
+    accuracy: coarse && coarseModel ? accuracyOf(s.time, s.insideFlux, reportStart, coarse, coarseModel) : null,
+    otherStartInsideFlux: other ? other.series.insideFlux : null,
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
 
@@ -186,4 +203,57 @@ function solAirSeries(model: ModelData, time: number[], air: number[]): Float64A
     out[k] = solAirTemperature(air[k], solar.absorptance, signalAt(irradiance, time[k]), model.outside.surfaceResistance);
   }
   return out;
+}
+
+/** the same run at twice the step and twice the largest cell (outputs on a grid both runs share); null when the step cannot double */
+export function coarserModel(model: ModelData): ModelData | null {
+  const timeStep = model.timeStep * 2;
+  if (timeStep > model.duration) return null;
+  const interval = lcm(Math.round(model.outputInterval), Math.round(timeStep));
+  if (interval > model.duration) return null;
+  return { ...model, timeStep, outputInterval: interval, mesh: { ...model.mesh, maxCellSize: model.mesh.maxCellSize * 2, minCellsPerLayer: Math.max(2, Math.floor(model.mesh.minCellsPerLayer / 2)) } };
+}
+
+/** the same run from a uniform start at the mean of the two air temperatures at time zero (a start as wrong as a plausible guess) */
+function otherStartModel(model: ModelData): ModelData {
+  const outside = compileSignal(model.outside.air);
+  const inside = compileSignal(model.inside.air);
+  const temperature = (signalAt(outside, 0) + signalAt(inside, 0)) / 2;
+  return { ...model, initial: { kind: 'uniform', temperature } };
+}
+
+function gcd(a: number, b: number): number {
+  while (b) [a, b] = [b, a % b];
+  return a;
+}
+const lcm = (a: number, b: number) => (a / gcd(a, b)) * b;
+
+/** the largest difference of the inside flux between the run and its coarse twin over the reported days, absolute and relative to the amplitude */
+export function accuracyOf(time: number[], insideFlux: number[], reportStart: number, coarse: Result, coarseModel: ModelData): AccuracyEstimate {
+  const byTime = new Map<number, number>();
+  for (let k = 0; k < time.length; k++) if (time[k] >= reportStart - 1e-6) byTime.set(Math.round(time[k]), insideFlux[k]);
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of byTime.values()) {
+    lo = Math.min(lo, v);
+    hi = Math.max(hi, v);
+  }
+  let maxDifference = 0;
+  const c = coarse.series;
+  for (let k = 0; k < c.time.length; k++) {
+    const fine = byTime.get(Math.round(c.time[k]));
+    if (fine !== undefined) maxDifference = Math.max(maxDifference, Math.abs(fine - c.insideFlux[k]));
+  }
+  const amplitude = Math.max((hi - lo) / 2, 1e-3);
+  return { maxDifference, relative: maxDifference / amplitude, coarseTimeStep: coarseModel.timeStep, coarseCells: coarse.stats.cells };
+}
+
+/** the scheme as the engine ran it, from its stats (Crank–Nicolson steps and start-up sub-steps, when it counts them) */
+export function schemeOf(result: Result): string {
+  const stats = result.stats as Result['stats'] & { crankNicolsonSteps?: number; startupSubSteps?: number; implicitSteps?: number };
+  const parts: string[] = [];
+  if (typeof stats.crankNicolsonSteps === 'number') parts.push(`${stats.crankNicolsonSteps} Crank–Nicolson steps`);
+  if (typeof stats.startupSubSteps === 'number' && stats.startupSubSteps > 0) parts.push(`${stats.startupSubSteps} start-up sub-steps`);
+  if (typeof stats.implicitSteps === 'number' && stats.implicitSteps > 0) parts.push(`${stats.implicitSteps} backward-Euler steps`);
+  return parts.length > 0 ? parts.join(', ') : `Crank–Nicolson, ${stats.steps} steps`;
 }

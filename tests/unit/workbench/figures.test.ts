@@ -64,7 +64,7 @@ describe('dayClock', () => {
 
 // a heavy single-layer wall (our own example: 200 mm of dense concrete, typical values from memory)
 const concreteWall = (days: number, warmupDays: number): WorkbenchDocument => ({
-  version: 1,
+  version: 2,
   layers: [
     { id: 'a', name: 'Dense concrete', materialRef: null, materialClass: 'concrete', thickness: 0.2, conductivity: 1.35, density: 2000, specificHeat: 1000, vapourResistanceFactor: null, source: 'typical value, from memory', note: '' },
     { id: 'b', name: 'Mineral wool', materialRef: null, materialClass: 'insulation', thickness: 0.1, conductivity: 0.035, density: 50, specificHeat: 1030, vapourResistanceFactor: null, source: 'typical value, from memory', note: '' },
