@@ -356,7 +356,7 @@ export function toModel(doc: WorkbenchDocument, upload?: UploadedSeries): ModelI
     outputInterval: totalDays > 60 ? HOUR : 900 % exposure.timeStep === 0 ? 900 : exposure.timeStep,
     mesh: { maxCellSize: exposure.maxCellSize, minCellsPerLayer: 4 },
     scheme: 'crank-nicolson',
-  } as ModelInput;
+  };
 }
 
 /** the dew point of air, °C, by the Magnus formula with Alduchov & Eskridge (1996) coefficients, over water */

@@ -311,7 +311,7 @@ export function figures(input: FigureInput): RunFigures {
     for (let m = 0; from < end - 1e-6; m++) {
       const to = Math.min(end, from + lengths[m % 12] * 86400);
       const part = splitIntegral(time, input.insideFlux, from, to);
-      monthly.push({ month: m + 1, days: (to - from) / 86400, gained: part.positive / HOUR / 1000, lost: -part.negative / HOUR / 1000 });
+      monthly.push({ month: m + 1, days: (to - from) / 86400, gained: part.positive / HOUR / 1000, lost: (0 - part.negative) / HOUR / 1000 });
       from = to;
     }
   }
@@ -325,7 +325,7 @@ export function figures(input: FigureInput): RunFigures {
     peakHeatGain,
     peakHeatLoss,
     totalHeatGained: whole.positive / HOUR / 1000,
-    totalHeatLost: -whole.negative / HOUR / 1000,
+    totalHeatLost: (0 - whole.negative) / HOUR / 1000,
     monthly,
     heatGained: heat.positive / HOUR,
     heatLost: -heat.negative / HOUR,

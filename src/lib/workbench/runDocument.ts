@@ -248,12 +248,17 @@ export function accuracyOf(time: number[], insideFlux: number[], reportStart: nu
   return { maxDifference, relative: maxDifference / amplitude, coarseTimeStep: coarseModel.timeStep, coarseCells: coarse.stats.cells };
 }
 
-/** the scheme as the engine ran it, from its stats (Crank–Nicolson steps and start-up sub-steps, when it counts them) */
+/** the scheme as the engine ran it, from its stats: whole steps of the scheme and the start-up sub-steps after jumps */
 export function schemeOf(result: Result): string {
-  const stats = result.stats as Result['stats'] & { crankNicolsonSteps?: number; startupSubSteps?: number; implicitSteps?: number };
-  const parts: string[] = [];
-  if (typeof stats.crankNicolsonSteps === 'number') parts.push(`${stats.crankNicolsonSteps} Crank–Nicolson steps`);
-  if (typeof stats.startupSubSteps === 'number' && stats.startupSubSteps > 0) parts.push(`${stats.startupSubSteps} start-up sub-steps`);
-  if (typeof stats.implicitSteps === 'number' && stats.implicitSteps > 0) parts.push(`${stats.implicitSteps} backward-Euler steps`);
-  return parts.length > 0 ? parts.join(', ') : `Crank–Nicolson, ${stats.steps} steps`;
+  const a = result.stats.scheme;
+  const name = a.scheme === 'implicit' ? 'backward Euler' : 'Crank–Nicolson';
+  const parts = [`${a.fullSteps} ${name} steps`];
+  if (a.restarts > 0) {
+    const sub: string[] = [];
+    if (a.backwardEulerSubSteps > 0) sub.push(`${a.backwardEulerSubSteps} backward-Euler quarter steps`);
+    if (a.crankNicolsonSubSteps > 0) sub.push(`${a.crankNicolsonSubSteps} Crank–Nicolson half steps`);
+    parts.push(`${a.restarts} start-up${a.restarts > 1 ? 's' : ''} after jumps (${sub.join(', ')})`);
+  }
+  if (result.stats.periodicStart) parts.push('periodic start');
+  return parts.join(', ');
 }
