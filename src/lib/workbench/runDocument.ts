@@ -73,8 +73,26 @@ export function transferables(outcome: RunOutcome): ArrayBuffer[] {
   return Object.values(outcome.series).map((a: Float64Array) => a.buffer as ArrayBuffer);
 }
 
-/** runs a workbench document (the upload is needed when the outdoor air is an uploaded series) */
-export function runDocument(input: unknown, upload?: UploadedSeries | null, options: RunOptions = {}): RunOutcome {
+/** a document simulated: the engine's model and whole result (warm-up included) beside the figures */
+export interface DocumentRun {
+  kind: 'done';
+  doc: WorkbenchDocument;
+  model: ModelData;
+  result: Result;
+  figures: RunFigures;
+  /** s: where the reported days start in the run */
+  reportStart: number;
+  /** the sol-air temperature at the result's output times (the air without sun or sky) */
+  solAir: Float64Array;
+  interfaceNames: string[];
+}
+
+/**
+ * Validates and simulates a workbench document the way the workbench does (the run, its
+ * coarse twin for the accuracy estimate, and for an upload a second start), and computes
+ * the figures. The command line prints what this returns; runDocument() packs it for the worker.
+ */
+export function simulateDocument(input: unknown, upload?: UploadedSeries | null, options: RunOptions = {}): DocumentRun | RunInvalid | RunCancelled {
   const parsedDoc = workbenchDocumentSchema.safeParse(input);
   if (!parsedDoc.success) {
     return { kind: 'invalid', issues: parsedDoc.error.issues.map((i) => `${formatPath(i.path)}: ${i.message}`) };
@@ -117,29 +135,9 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
 
   const s = result.series;
   const reportStart = effectiveWarmupDays(doc.exposure) * DAY;
-  let first = 0;
-  while (first < s.time.length && s.time[first] < reportStart - 1e-6) first++;
-  const nTimes = s.time.length - first;
-  const nNodes = result.mesh.x.length;
-  const nInterfaces = s.interfaces.length;
-
-  const slice = (a: number[]): Float64Array => Float64Array.from(a.slice(first));
-  const time = new Float64Array(nTimes);
-  for (let k = 0; k < nTimes; k++) time[k] = s.time[first + k] - reportStart;
-
-  // sol-air: air + absorptance · irradiance · R_se, from the model's own signals
+  // sol-air: air + R_se · (absorptance · irradiance − long-wave loss), from the model's own signals
   const solarFull = solAirSeries(model, s.time, s.outsideAir);
-  const solAir = Float64Array.from(solarFull.subarray(first));
-
-  const interfaces = new Float64Array(nInterfaces * nTimes);
-  for (let j = 0; j < nInterfaces; j++) interfaces.set(s.interfaces[j].slice(first), j * nTimes);
-  const profiles = new Float64Array(nTimes * nNodes);
-  for (let k = 0; k < nTimes; k++) profiles.set(result.profiles[first + k], k * nNodes);
-
   const interfaceNames = doc.layers.slice(1).map((l, j) => `${doc.layers[j].name} / ${l.name}`);
-  const layerBounds = [0];
-  for (const l of doc.layers) layerBounds.push(layerBounds[layerBounds.length - 1] + l.thickness);
-
   const out = doc.exposure.outdoor;
   const runFigures = figures({
     time: s.time,
@@ -165,6 +163,34 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
     otherStartInsideFlux: other ? other.series.insideFlux : null,
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
+  return { kind: 'done', doc, model, result, figures: runFigures, reportStart, solAir: solarFull, interfaceNames };
+}
+
+/** runs a workbench document (the upload is needed when the outdoor air is an uploaded series) and packs the reported days for the worker */
+export function runDocument(input: unknown, upload?: UploadedSeries | null, options: RunOptions = {}): RunOutcome {
+  const run = simulateDocument(input, upload, options);
+  if (run.kind !== 'done') return run;
+  const { doc, model, result, reportStart, interfaceNames, figures: runFigures } = run;
+  const s = result.series;
+  let first = 0;
+  while (first < s.time.length && s.time[first] < reportStart - 1e-6) first++;
+  const nTimes = s.time.length - first;
+  const nNodes = result.mesh.x.length;
+  const nInterfaces = s.interfaces.length;
+
+  const slice = (a: number[]): Float64Array => Float64Array.from(a.slice(first));
+  const time = new Float64Array(nTimes);
+  for (let k = 0; k < nTimes; k++) time[k] = s.time[first + k] - reportStart;
+
+  const solAir = Float64Array.from(run.solAir.subarray(first));
+
+  const interfaces = new Float64Array(nInterfaces * nTimes);
+  for (let j = 0; j < nInterfaces; j++) interfaces.set(s.interfaces[j].slice(first), j * nTimes);
+  const profiles = new Float64Array(nTimes * nNodes);
+  for (let k = 0; k < nTimes; k++) profiles.set(result.profiles[first + k], k * nNodes);
+
+  const layerBounds = [0];
+  for (const l of doc.layers) layerBounds.push(layerBounds[layerBounds.length - 1] + l.thickness);
 
   return {
     kind: 'done',
@@ -197,10 +223,12 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
 function solAirSeries(model: ModelData, time: number[], air: number[]): Float64Array {
   const out = Float64Array.from(air);
   const solar = model.outside.solar;
-  if (!solar || model.outside.surfaceResistance === 0) return out;
-  const irradiance = compileSignal(solar.irradiance);
+  const longWave = model.outside.longWave;
+  if ((!solar && !longWave) || model.outside.surfaceResistance === 0) return out;
+  const irradiance = solar ? compileSignal(solar.irradiance) : null;
+  const netLoss = longWave ? compileSignal(longWave.netLoss) : null;
   for (let k = 0; k < time.length; k++) {
-    out[k] = solAirTemperature(air[k], solar.absorptance, signalAt(irradiance, time[k]), model.outside.surfaceResistance);
+    out[k] = solAirTemperature(air[k], solar?.absorptance ?? 0, irradiance ? signalAt(irradiance, time[k]) : 0, model.outside.surfaceResistance, netLoss ? signalAt(netLoss, time[k]) : 0);
   }
   return out;
 }
