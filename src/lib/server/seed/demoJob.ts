@@ -25,7 +25,7 @@ function layer(id: string, key: string, thicknessMm: number, note = ''): DocLaye
   };
 }
 
-const doc = (layers: DocLayer[]): WorkbenchDocument => workbenchDocumentSchema.parse({ version: 1, layers, exposure: defaultExposure() });
+const doc = (layers: DocLayer[]): WorkbenchDocument => workbenchDocumentSchema.parse({ version: 2, layers, exposure: defaultExposure() });
 
 /** three contrasting build-ups for the fictional 1970s library: heavy, light, and a thin metal panel */
 export const DEMO_ASSEMBLIES: { name: string; element: 'wall' | 'roof'; description: string; note: string; doc: WorkbenchDocument }[] = [
