@@ -72,6 +72,14 @@ export default function JobScreen({ jobId, canEdit }: { jobId: number; canEdit: 
           )}
         </CreateForm>
       ) : null}
+      {canEdit ? (
+        <p className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm">
+          <a href={`/api/jobs/${jobId}/export`} download className="rounded border border-line bg-panel px-3 py-1.5 font-semibold text-accent-strong hover:bg-accent-soft" data-testid="download-backup">
+            Download backup
+          </a>
+          <span className="text-ink-soft">One JSON file with this job’s assemblies, revisions, check trail, comments, runs and uploaded series; restore it from the Jobs page.</span>
+        </p>
+      ) : null}
       <DataTable<AssemblyRow>
         endpoint={`/api/jobs/${jobId}/assemblies`}
         columns={columns}

@@ -3,6 +3,7 @@ import DataTable from '../team/DataTable';
 import Field from '../team/Field';
 import { formatWhen } from '../team/format';
 import CreateForm from './CreateForm';
+import RestoreForm from './RestoreForm';
 import type { JobRow as ServerJobRow, Wire } from '../../lib/schemas/rows';
 
 type JobRow = Wire<ServerJobRow>;
@@ -42,6 +43,9 @@ export default function JobsScreen({ teamId, canEdit }: { teamId: number; canEdi
             </div>
           )}
         </CreateForm>
+      ) : null}
+      {canEdit ? (
+        <RestoreForm teamId={teamId} />
       ) : (
         <p className="text-sm text-ink-soft">Your role may read and check the team’s jobs; engineers and admins create them.</p>
       )}

@@ -34,6 +34,8 @@ const ACTION_TEXT: Record<string, string> = {
   share_opened: 'Share link opened',
   share_revoked: 'Share link revoked',
   revision_issued: 'Revision issued',
+  job_exported: 'Job backup downloaded',
+  job_restored: 'Job restored from a backup',
 };
 
 function detailText(row: AuditRow): string {

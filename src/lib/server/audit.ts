@@ -18,7 +18,9 @@ export type AuditAction =
   | 'share_created'
   | 'share_opened'
   | 'share_revoked'
-  | 'revision_issued';
+  | 'revision_issued'
+  | 'job_exported'
+  | 'job_restored';
 
 export interface AuditEntry {
   action: AuditAction;

@@ -65,8 +65,10 @@ export async function updateJob(jobId: number, input: Partial<{ name: string; re
   await db.update(jobs).set({ ...input, updatedAt: new Date() }).where(eq(jobs.id, jobId));
 }
 
-const headNumber = sql<number | null>`(select max(r.number) from ${revisions} r where r.assembly_id = ${assemblies.id})`;
-const headState = sql<string | null>`(select r.state from ${revisions} r where r.assembly_id = ${assemblies.id} order by r.number desc limit 1)`;
+// the outer row named in full: in a select without joins drizzle writes ${assemblies.id} as a bare `id`, which the
+// subquery would read as r.id
+const headNumber = sql<number | null>`(select max(r.number) from ${revisions} r where r.assembly_id = assemblies.id)`;
+const headState = sql<string | null>`(select r.state from ${revisions} r where r.assembly_id = assemblies.id order by r.number desc limit 1)`;
 
 export async function listAssemblies(jobId: number, q: ListQuery): Promise<Page<AssemblyRow>> {
   const p = likePattern(q.q);
