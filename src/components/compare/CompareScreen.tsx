@@ -298,6 +298,8 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
     for (const k of Object.keys(r.effects) as MetricKey[]) out[k] = strongest(r.effects[k]);
     return out;
   });
+  // the alternatives whose document can run, for the sensitivity
+  const runnable = picked.flatMap((s, i) => (docs[i] ? [{ i, id: s.revision.id, doc: docs[i]! }] : []));
   const maxMm = Math.max(1, ...picked.map((s) => (s.doc ? s.doc.layers.reduce((a, l) => a + l.thickness, 0) * 1000 : 0)));
 
   return (
@@ -488,13 +490,10 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
 
       {picked.length > 0 && exposure && runner.current ? (
         <SensitivityPanel
-          alternatives={picked.flatMap((s, i) => (docs[i] ? [{ label: labels[i], doc: docs[i]!, upload: uploadSeries }] : []))}
+          alternatives={runnable.map(({ i, doc }) => ({ label: labels[i], doc, upload: uploadSeries }))}
           runner={runner.current}
-          results={picked.map((s, i) => {
-            const r = sensitivity[s.revision.id];
-            return r && r.doc === docs[i] ? r : (r ?? null);
-          })}
-          onResult={(i, result) => setSensitivity((m) => ({ ...m, [picked[i].revision.id]: result }))}
+          results={runnable.map(({ id }) => sensitivity[id] ?? null)}
+          onResult={(k, result) => setSensitivity((m) => ({ ...m, [runnable[k].id]: result }))}
         />
       ) : null}
     </div>

@@ -100,8 +100,8 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
           {MOST_ROWS.map((m) => (
             <tr key={m} className="border-b border-line/60" data-row={`most-${m}`}>
               <th scope="row" className="px-3 py-1.5 text-left font-normal">
-                <Hint text={`The layer property whose change by ±${fraction * 100} % moves the ${METRICS[m].label.toLowerCase()} most (the top bar of its tornado chart). Run the sensitivity below to fill it.`}>
-                  Matters most for the {METRICS[m].label.toLowerCase()}
+                <Hint text={`The layer property whose change by ±${fraction * 100} % moves the ${METRICS[m].phrase} most (the top bar of its tornado chart). Run the sensitivity below to fill it.`}>
+                  Matters most for the {METRICS[m].phrase}
                 </Hint>
               </th>
               {figures.map((_, i) => {
@@ -112,7 +112,7 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
                       <>
                         <span className="font-semibold">{effectName(e)}</span>
                         <span className="block text-ink-soft">
-                          {signed(e.deltaLow * METRICS[m].scale, METRICS[m].digits - 1)} / {signed(e.deltaHigh * METRICS[m].scale, METRICS[m].digits - 1)} {METRICS[m].unit}
+                          at −/+: {signed(e.deltaLow * METRICS[m].scale, METRICS[m].digits - 1)} / {signed(e.deltaHigh * METRICS[m].scale, METRICS[m].digits - 1)} {METRICS[m].unit === '–' ? '' : METRICS[m].unit}
                         </span>
                       </>
                     ) : strongest[i] ? (

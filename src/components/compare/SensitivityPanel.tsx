@@ -121,7 +121,7 @@ export default function SensitivityPanel({ alternatives, runner, results, onResu
   const pctShown = current ? `${+(current.fraction * 100).toFixed(3)} %` : '';
 
   return (
-    <section aria-labelledby="sensitivity-title" className="flex flex-col gap-3 rounded border border-line bg-panel p-3 break-before-page" data-testid="sensitivity">
+    <section aria-labelledby="sensitivity-title" className={`flex flex-col gap-3 rounded border border-line bg-panel p-3 break-before-page ${current ? '' : 'print:hidden'}`} data-testid="sensitivity">
       <div>
         <h2 id="sensitivity-title" className="text-lg font-semibold">
           What matters most: sensitivity
@@ -245,7 +245,7 @@ export default function SensitivityPanel({ alternatives, runner, results, onResu
           ) : null}
           <div className="overflow-x-auto">
             <table className="w-full text-sm tabular" data-testid="sensitivity-table">
-              <caption className="sr-only">How each layer property moves the {m.label.toLowerCase()}</caption>
+              <caption className="sr-only">How each layer property moves the {m.phrase}</caption>
               <thead>
                 <tr className="border-b border-line text-xs text-ink-soft">
                   <th className="py-1 pr-3 text-right font-normal">Rank</th>
@@ -279,7 +279,7 @@ export default function SensitivityPanel({ alternatives, runner, results, onResu
                 ))}
               </tbody>
             </table>
-            <p className="mt-1 text-xs text-ink-soft">Values in {m.unit}. Each property is changed alone; the others keep their values. A thickness change can also change the number of cells of that layer.</p>
+            <p className="mt-1 text-xs text-ink-soft">{m.unit === '–' ? 'The figure has no unit.' : `Values in ${m.unit}.`} Each property is changed alone; the others keep their values. A thickness change can also change the number of cells of that layer.</p>
           </div>
           <button
             type="button"

@@ -1,7 +1,7 @@
 // a tornado chart: one bar per layer property, ordered by how far its change moves the figure;
 // the lowered and raised halves on either side of the base value; numbers in each bar's tooltip
 import { useState } from 'react';
-import { effectName, METRICS, type Effect, type MetricKey } from '../../lib/workbench/sensitivity';
+import { effectName, METRICS, PROPERTY_LABELS, type Effect, type MetricKey } from '../../lib/workbench/sensitivity';
 import { signed } from './rows';
 
 const W = 760;
@@ -28,14 +28,16 @@ export default function Tornado({ metric, effects, fraction, limit }: TornadoPro
   const x0 = LABEL_W + plotW / 2;
   const px = (d: number) => x0 + (Number.isFinite(d) ? (d / reach) * (plotW / 2 - 4) : 0);
   const height = TOP + shown.length * ROW + 34;
-  const value = (v: number) => `${Number.isFinite(v) ? (v * m.scale).toFixed(m.digits) : '–'} ${m.unit}`;
-  const change = (v: number) => `${signed(v * m.scale, m.digits)} ${m.unit}`;
+  // a dimensionless figure carries no unit after its numbers
+  const unit = m.unit === '–' ? '' : ` ${m.unit}`;
+  const value = (v: number) => `${Number.isFinite(v) ? (v * m.scale).toFixed(m.digits) : '–'}${unit}`;
+  const change = (v: number) => `${signed(v * m.scale, m.digits)}${unit}`;
   const tip = (e: Effect) =>
-    `${effectName(e)}. Base ${value(e.base)}. Lowered by ${pct}: ${value(e.low)} (${change(e.deltaLow)}). Raised by ${pct}: ${value(e.high)} (${change(e.deltaHigh)}). Central difference: ${signed((e.slope * m.scale) / 100, m.digits + 1)} ${m.unit} per +1 % of the property.`;
+    `${effectName(e)}. Base ${value(e.base)}. Lowered by ${pct}: ${value(e.low)} (${change(e.deltaLow)}). Raised by ${pct}: ${value(e.high)} (${change(e.deltaHigh)}). Central difference: ${signed((e.slope * m.scale) / 100, m.digits + 1)}${unit} per +1 % of the property.`;
   const h = hover !== null ? shown[hover] : null;
   return (
     <div className="relative" data-testid="tornado" data-metric={metric}>
-      <svg viewBox={`0 0 ${W} ${height}`} width="100%" className="max-w-[760px] overflow-visible" role="group" aria-label={`Tornado chart: how each layer property moves the ${m.label.toLowerCase()} when changed by ${pct}`}>
+      <svg viewBox={`0 0 ${W} ${height}`} width="100%" className="max-w-[760px] overflow-visible" role="group" aria-label={`Tornado chart: how each layer property moves the ${m.phrase} when changed by ${pct}`}>
         <g aria-hidden="true" className="text-[11px]">
           <rect x={LABEL_W} y={6} width={12} height={10} className="fill-t1" />
           <text x={LABEL_W + 16} y={15} className="fill-ink-soft">
@@ -74,7 +76,7 @@ export default function Tornado({ metric, effects, fraction, limit }: TornadoPro
               <title>{tip(e)}</title>
               <rect x={0} y={y} width={W} height={ROW} className={hover === i ? 'fill-accent-soft' : 'fill-transparent'} />
               <text x={LABEL_W - 8} y={y + ROW / 2 + 4} textAnchor="end" className="fill-ink text-[12px]">
-                {truncate(effectName(e), 44)}
+                {`${e.layer + 1}: ${truncate(e.layerName, 30)}, ${PROPERTY_LABELS[e.property]}`}
               </text>
               {lowFirst ? bars : bars.reverse()}
             </g>
@@ -90,7 +92,7 @@ export default function Tornado({ metric, effects, fraction, limit }: TornadoPro
             </g>
           ))}
           <text x={x0} y={TOP + shown.length * ROW + 30} textAnchor="middle" className="fill-ink-soft">
-            change of the {m.label.toLowerCase()} from its base value, {m.unit}
+            change of the {m.phrase} from its base value{unit ? `,${unit}` : ''}
           </text>
         </g>
       </svg>
@@ -109,7 +111,10 @@ export default function Tornado({ metric, effects, fraction, limit }: TornadoPro
           <span className="block">
             Raised by {pct}: {value(h.high)} ({change(h.deltaHigh)})
           </span>
-          <span className="block">Central difference: {signed((h.slope * m.scale) / 100, m.digits + 1)} {m.unit} per +1 %</span>
+          <span className="block">
+            Central difference: {signed((h.slope * m.scale) / 100, m.digits + 1)}
+            {unit} per +1 % of the property
+          </span>
         </div>
       ) : null}
     </div>

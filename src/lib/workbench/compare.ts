@@ -25,9 +25,9 @@ export interface CompareFigures {
   decrementFactorAnalytic: number;
   /** s, ISO 13786 */
   timeLagAnalytic: number;
-  /** W/m², the largest inside heat flux into the room over the reported period, and when (s from midnight of the first reported day) */
+  /** W/m², the largest inside heat flux into the room over the reported period, and when (s from midnight of the first reported day); 0 at no time when the flux never enters the room */
   peakGain: TimedValue;
-  /** W/m², the largest heat flux out of the room (a positive number), and when */
+  /** W/m², the largest heat flux out of the room (a positive number), and when; 0 at no time when the flux never leaves the room */
   peakLoss: TimedValue;
   /** Wh/m² into the room over the reported period */
   heatGained: number;
@@ -113,8 +113,8 @@ export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Res
     timeLag: run.timeLag.simulated,
     decrementFactorAnalytic: result.periodic.decrementFactor,
     timeLagAnalytic: result.periodic.timeLag,
-    peakGain: gain,
-    peakLoss: { value: -loss.value, time: loss.time },
+    peakGain: gain.value > 0 ? gain : { value: 0, time: NaN },
+    peakLoss: loss.value < 0 ? { value: -loss.value, time: loss.time } : { value: 0, time: NaN },
     heatGained: heat.positive / HOUR,
     heatLost: -heat.negative / HOUR,
     reportedDays: (end - reportStart) / DAY,

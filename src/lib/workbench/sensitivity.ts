@@ -21,6 +21,8 @@ export type MetricKey = (typeof METRIC_KEYS)[number];
 
 export interface MetricInfo {
   label: string;
+  /** the name inside a sentence ("matters most for the …") */
+  phrase: string;
   /** the unit the numbers are shown in */
   unit: string;
   /** from the SI value to the shown unit */
@@ -30,9 +32,10 @@ export interface MetricInfo {
 }
 
 export const METRICS: Record<MetricKey, MetricInfo> = {
-  uValue: { label: 'U-value', unit: 'W/m²K', scale: 1, digits: 4, how: 'Steady state, 1 / (R_se + Σ d/λ + R_si), ISO 6946.' },
+  uValue: { label: 'U-value', phrase: 'U-value', unit: 'W/m²K', scale: 1, digits: 4, how: 'Steady state, 1 / (R_se + Σ d/λ + R_si), ISO 6946.' },
   decrementFactor: {
     label: 'Decrement factor',
+    phrase: 'decrement factor',
     unit: '–',
     scale: 1,
     digits: 4,
@@ -40,14 +43,16 @@ export const METRICS: Record<MetricKey, MetricInfo> = {
   },
   timeLag: {
     label: 'Time lag',
+    phrase: 'time lag',
     unit: 'h',
     scale: 1 / 3600,
     digits: 3,
     how: 'Simulated: phase of the first harmonic of the inside heat flux less that of the driving outdoor temperature, over the last simulated day.',
   },
-  peakInsideFlux: { label: 'Peak inside heat flux', unit: 'W/m²', scale: 1, digits: 3, how: 'Largest inside heat flux into the room at the output times of the reported days.' },
+  peakInsideFlux: { label: 'Peak inside heat flux', phrase: 'peak inside heat flux', unit: 'W/m²', scale: 1, digits: 3, how: 'Largest inside heat flux at the output times of the reported days (positive into the room; negative when the flux never enters it), as the workbench shows it.' },
   heatLost: {
     label: 'Heat lost, reported period',
+    phrase: 'heat lost over the reported period',
     unit: 'Wh/m²',
     scale: 1,
     digits: 2,
@@ -60,7 +65,7 @@ export type Metrics = Record<MetricKey, number>;
 
 /** the metrics of one run, from its compare figures */
 export function metricsOf(f: CompareFigures): Metrics {
-  return { uValue: f.uValue, decrementFactor: f.decrementFactor, timeLag: f.timeLag, peakInsideFlux: f.peakGain.value, heatLost: f.heatLost };
+  return { uValue: f.uValue, decrementFactor: f.decrementFactor, timeLag: f.timeLag, peakInsideFlux: f.run.peakInsideFlux.value, heatLost: f.heatLost };
 }
 
 /** one changed property of one layer; sign −1 lowers it by the fraction, +1 raises it */
