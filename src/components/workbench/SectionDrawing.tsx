@@ -25,12 +25,12 @@ function scaleBarMm(totalMm: number): number {
  * the build-up to scale, outside at the top and inside at the bottom like the cards;
  * layers under MIN_PX are drawn at MIN_PX (the drawing says so)
  */
-function SectionDrawing({ layers }: { layers: DocLayer[] }) {
+function SectionDrawing({ layers, pxPerMm }: { layers: DocLayer[]; /** a fixed scale, px per mm, so several drawings share one (compare); default: fit the height */ pxPerMm?: number }) {
   const highlightedId = useWorkbench((s) => s.highlightedId);
   const setHighlighted = useWorkbench((s) => s.setHighlighted);
   const total = layers.reduce((a, l) => a + l.thickness, 0);
   if (layers.length === 0 || total <= 0) return null;
-  const scale = drawHeight(layers.length) / (total * 1000); // px per mm
+  const scale = pxPerMm ?? drawHeight(layers.length) / (total * 1000); // px per mm
   let y = TOP;
   let widened = false;
   const bands = layers.map((l) => {

@@ -220,7 +220,8 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
   };
 }
 
-function solAirSeries(model: ModelData, time: number[], air: number[]): Float64Array {
+/** the sol-air temperature at the output times (equals the outside air without sun); compare reuses it */
+export function solAirSeries(model: ModelData, time: number[], air: number[]): Float64Array {
   const out = Float64Array.from(air);
   const solar = model.outside.solar;
   const longWave = model.outside.longWave;

@@ -1,0 +1,72 @@
+// what the compare worker exposes, kept apart from the worker's own file so tests and the
+// bench can call it directly. both calls run their documents on the batched engine and send
+// back only what the page needs: the compare figures with two traces, or the sensitivity metrics.
+import * as Comlink from 'comlink';
+import { parseModel, type ModelData } from '../schemas/model.ts';
+import { toModel, workbenchDocumentSchema, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench.ts';
+import { simulateBatch } from '../thermal/batch.ts';
+import { compareRun, type CompareRun } from './compare.ts';
+import { metricsOf, perturbedDocument, type Metrics, type Perturbation } from './sensitivity.ts';
+
+/** fraction done of this call, 0…1 */
+export type ChunkProgress = (fraction: number) => void;
+
+/** one alternative: a workbench document (its exposure already the compared one) and its upload when the outdoor air is a series */
+export interface CompareItem {
+  doc: unknown;
+  upload?: UploadedSeries | null;
+}
+
+export type CompareOutcome = ({ kind: 'done' } & CompareRun) | { kind: 'invalid'; issues: string[] };
+
+/** a document made into an engine model, or the `path: message` lines that stop it */
+function modelOf(input: unknown, upload: UploadedSeries | null | undefined): { ok: true; doc: WorkbenchDocument; model: ModelData } | { ok: false; issues: string[] } {
+  const parsed = workbenchDocumentSchema.safeParse(input);
+  if (!parsed.success) return { ok: false, issues: parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`) };
+  const doc = parsed.data;
+  if (doc.exposure.outdoor.mode === 'series' && !upload) return { ok: false, issues: ['exposure.outdoor.uploadId: the uploaded series is not loaded'] };
+  const model = parseModel(toModel(doc, upload ?? undefined));
+  return model.ok ? { ok: true, doc, model: model.model } : { ok: false, issues: model.issues };
+}
+
+/** about a hundred progress reports over a run, never closer than 256 steps */
+function progressEvery(models: ModelData[]): number {
+  const steps = Math.max(1, ...models.map((m) => Math.ceil(m.duration / m.timeStep)));
+  return Math.max(256, Math.ceil(steps / 100));
+}
+
+export const compareApi = {
+  /** runs the alternatives together; the traces' arrays are transferred, not copied */
+  compare(items: CompareItem[], onProgress?: ChunkProgress): CompareOutcome[] {
+    const built = items.map((it) => modelOf(it.doc, it.upload));
+    const ok = built.filter((b) => b.ok);
+    const results = ok.length > 0 ? simulateBatch(ok.map((b) => b.model), { storeProfiles: false, onProgress, progressEvery: progressEvery(ok.map((b) => b.model)) }) : [];
+    let next = 0;
+    const outcomes: CompareOutcome[] = built.map((b) => (b.ok ? { kind: 'done', ...compareRun(b.doc, b.model, results[next++]) } : { kind: 'invalid', issues: b.issues }));
+    const buffers = outcomes.flatMap((o) => (o.kind === 'done' ? [o.series.hours.buffer, o.series.insideSurface.buffer, o.series.insideFlux.buffer] : [])) as ArrayBuffer[];
+    return Comlink.transfer(outcomes, buffers);
+  },
+
+  /**
+   * Runs a share of a sensitivity plan: the document with each listed perturbation (null: the
+   * document itself) and answers the metrics of each, in order. Throws with the issues when the
+   * document cannot run.
+   */
+  sensitivity(doc: unknown, upload: UploadedSeries | null, plan: (Perturbation | null)[], fraction: number, onProgress?: ChunkProgress): Metrics[] {
+    const parsed = workbenchDocumentSchema.parse(doc);
+    const runs = plan.map((p) => {
+      const m = modelOf(perturbedDocument(parsed, p, fraction), upload);
+      if (!m.ok) throw new Error(m.issues.join('\n'));
+      return m;
+    });
+    const results = simulateBatch(runs.map((r) => r.model), { storeProfiles: false, onProgress, progressEvery: progressEvery(runs.map((r) => r.model)) });
+    return runs.map((r, i) => metricsOf(compareRun(r.doc, r.model, results[i], false).figures));
+  },
+
+  /** answers at once: proves the worker is up and its modules are loaded */
+  ping(): string {
+    return 'ok';
+  },
+};
+
+export type CompareApi = typeof compareApi;
