@@ -33,6 +33,6 @@ export {
   type DocumentLike,
   type DocumentLayerLike,
 } from './assess.ts';
-export { moistureVerdictText, planeName, MOISTURE_CAUTIONS, MOISTURE_DEFERRAL, type MoistureVerdictText } from './verdict.ts';
+export { moistureVerdictText, moistureFigures, planeName, MOISTURE_CAUTIONS, MOISTURE_DEFERRAL, type MoistureVerdictText, type MoistureFigures } from './verdict.ts';
 export { glaserDiagramSvg, DIAGRAM_COLOURS, type DiagramOptions } from './diagram.ts';
 export { DEMO_CLIMATES, demoClimate, type DemoClimate } from './demoClimates.ts';

@@ -72,3 +72,51 @@ export function moistureVerdictText(a: MoistureAssessment): MoistureVerdictText 
   }
   return { kind: a.verdict, label, text, surface, surfaceRisk };
 }
+
+/** the moisture figures a run keeps beside its thermal figures (plain data: cloned to and from the worker) */
+export interface MoistureFigures {
+  verdict: MoistureAssessment['verdict'];
+  label: string;
+  text: string;
+  surfaceText: string;
+  /** g/m² */
+  maxAccumulated: number;
+  /** the plane of the largest amount held, in words; null when nothing condenses */
+  maxAtPlane: string | null;
+  /** 1…12 */
+  maxAtMonth: number | null;
+  driesOut: boolean;
+  startMonth: number | null;
+  /** months in which vapour condenses */
+  condensingMonths: number;
+  fRsi: number;
+  fRsiMin: number | null;
+  fRsiMinCondensation: number | null;
+  criticalMonth: number | null;
+  mouldRisk: boolean;
+  condensationRisk: boolean;
+}
+
+/** the figures of an assessment for a run's figures table and its kept summary */
+export function moistureFigures(a: MoistureAssessment): MoistureFigures {
+  const v = moistureVerdictText(a);
+  const g = a.glaser;
+  return {
+    verdict: a.verdict,
+    label: v.label,
+    text: v.text,
+    surfaceText: v.surface,
+    maxAccumulated: g.maxAccumulated,
+    maxAtPlane: g.maxAt ? planeName(a.layers, g.maxAt.plane) : null,
+    maxAtMonth: g.maxAt?.month ?? null,
+    driesOut: g.driesOut,
+    startMonth: g.startMonth,
+    condensingMonths: g.months.filter((m) => m.condensed > 0).length,
+    fRsi: a.surface.fRsi,
+    fRsiMin: a.surface.fRsiMin,
+    fRsiMinCondensation: a.surface.fRsiMinCondensation,
+    criticalMonth: a.surface.criticalMonth,
+    mouldRisk: a.surface.mouldRisk,
+    condensationRisk: a.surface.condensationRisk,
+  };
+}

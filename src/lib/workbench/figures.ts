@@ -2,7 +2,7 @@
 // pure: series in, numbers out. the simulated periodic figures come from the LAST full
 // simulated period (first harmonic by a discrete fourier sum), beside the analytic ones.
 import type { PeriodicResult } from '../thermal/types.ts';
-import { dewPoint } from '../schemas/workbench.ts';
+import type { MoistureFigures } from '../moisture/index.ts';
 
 const HOUR = 3600;
 
@@ -81,8 +81,8 @@ export interface FigureInput {
   timeStep: number;
   /** m */
   maxCellSize: number;
-  /** %, null leaves the dew-point check out */
-  indoorRelativeHumidity: number | null;
+  /** the ISO 13788 moisture check of the document (null without a climate), carried into the figures */
+  moisture?: MoistureFigures | null;
   /** the outdoor signal repeats every day (sine or sol-air day) */
   outdoorPeriodic: boolean;
   /** the indoor air is constant */
@@ -107,10 +107,8 @@ export interface RunFigures {
   insideSurfaceMax: TimedValue;
   /** the coldest interface over the reported days; null with a single layer */
   lowestInterface: (TimedValue & { name: string }) | null;
-  /** Magnus dew point of the indoor air at its mean temperature and the given humidity */
-  dewPoint: { value: number; airTemperature: number; relativeHumidity: number } | null;
-  /** lowest interface (or the inside surface with one layer) at or below the dew point */
-  belowDewPoint: boolean;
+  /** the ISO 13788 moisture check (interstitial and surface) under the document's monthly climate; null without one */
+  moisture: MoistureFigures | null;
   energyBalanceError: number;
   cells: number;
   timeStep: number;
@@ -201,22 +199,6 @@ export function figures(input: FigureInput): RunFigures {
     if (!lowest || m.value < lowest.value) lowest = { ...m, name: input.interfaceNames[j] ?? `interface ${j + 1}` };
   });
 
-  let dew: RunFigures['dewPoint'] = null;
-  let below = false;
-  if (input.indoorRelativeHumidity !== null) {
-    let sum = 0;
-    let count = 0;
-    for (let k = 0; k < n; k++) {
-      if (time[k] < reportStart - 1e-6) continue;
-      sum += input.insideAir[k];
-      count++;
-    }
-    const air = count > 0 ? sum / count : NaN;
-    dew = { value: dewPoint(air, input.indoorRelativeHumidity), airTemperature: air, relativeHumidity: input.indoorRelativeHumidity };
-    const coldest = (lowest as (TimedValue & { name: string }) | null)?.value ?? sMin.value;
-    below = coldest <= dew.value;
-  }
-
   // periodic state: inside surface at the same times of the last two days
   let periodic: RunFigures['periodic'];
   const criterion = `inside surface temperature at the same time of the last two simulated days differs by at most ${PERIODIC_TOLERANCE} K`;
@@ -244,8 +226,7 @@ export function figures(input: FigureInput): RunFigures {
     insideSurfaceMin: sMin,
     insideSurfaceMax: sMax,
     lowestInterface: lowest,
-    dewPoint: dew,
-    belowDewPoint: below,
+    moisture: input.moisture ?? null,
     energyBalanceError: input.energyBalanceError,
     cells: input.cells,
     timeStep: input.timeStep,
@@ -281,7 +262,16 @@ export function summaryOf(f: RunFigures): Record<string, number | string | null>
     insideSurfaceMaxC: round(f.insideSurfaceMax.value, 3),
     lowestInterfaceC: f.lowestInterface ? round(f.lowestInterface.value, 3) : null,
     lowestInterfaceAt: f.lowestInterface ? `${f.lowestInterface.name}, ${dayClock(f.lowestInterface.time)}` : null,
-    dewPointC: f.dewPoint ? round(f.dewPoint.value, 3) : null,
+    moistureVerdict: f.moisture ? f.moisture.verdict : null,
+    moistureMaxAccumulatedGm2: f.moisture ? round(f.moisture.maxAccumulated, 2) : null,
+    moistureDriesOut: f.moisture ? (f.moisture.driesOut ? 'yes' : 'no') : null,
+    moistureMaxAt: f.moisture?.maxAtPlane ?? null,
+    moistureCondensingMonths: f.moisture ? f.moisture.condensingMonths : null,
+    surfaceFRsi: f.moisture ? round(f.moisture.fRsi, 4) : null,
+    surfaceFRsiMin: f.moisture?.fRsiMin != null ? round(f.moisture.fRsiMin, 4) : null,
+    surfaceCriticalMonth: f.moisture?.criticalMonth ?? null,
+    surfaceMouldRisk: f.moisture ? (f.moisture.mouldRisk ? 'yes' : 'no') : null,
+    surfaceCondensationRisk: f.moisture ? (f.moisture.condensationRisk ? 'yes' : 'no') : null,
     energyBalanceError: Number.isFinite(f.energyBalanceError) ? f.energyBalanceError : null,
     cells: f.cells,
     timeStepS: f.timeStep,

@@ -6,6 +6,7 @@ import { workbenchDocumentSchema, toModel, type UploadedSeries, type WorkbenchDo
 import { simulate, SimulationCancelled, analyse, compileSignal, signalAt, solAirTemperature } from '../thermal/index.ts';
 import type { Figures as AnalyticFigures } from '../thermal/types.ts';
 import { figures, type RunFigures } from './figures.ts';
+import { assessDocument, moistureFigures } from '../moisture/index.ts';
 
 const DAY = 86400;
 
@@ -144,7 +145,7 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
     cells: result.stats.cells,
     timeStep: model.timeStep,
     maxCellSize: doc.exposure.maxCellSize,
-    indoorRelativeHumidity: doc.exposure.indoorRelativeHumidity,
+    moisture: moistureOf(doc),
     outdoorPeriodic: out.mode !== 'series',
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
@@ -175,6 +176,12 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
     elapsedMs: result.stats.elapsedMs,
     steps: result.stats.steps,
   };
+}
+
+/** the ISO 13788 check of the document's layers under its monthly climate; null without a climate or a μ */
+function moistureOf(doc: WorkbenchDocument) {
+  const a = assessDocument(doc);
+  return a ? moistureFigures(a) : null;
 }
 
 function solAirSeries(model: ModelData, time: number[], air: number[]): Float64Array {
