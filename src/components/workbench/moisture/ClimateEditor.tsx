@@ -60,7 +60,16 @@ export default function ClimateEditor({ climate, readOnly }: { climate: ClimateD
   const [text, setText] = useState('');
   const [problems, setProblems] = useState<string[]>([]);
   const [note, setNote] = useState('');
+  const clearDraft = useWorkbench((s) => s.clearDraft);
   const set = (next: ClimateData) => setExposure({ climate: next });
+  /** new months from a paste, a file or a demo: what was typed into the month cells gives way */
+  const replaceMonths = (next: ClimateData) => {
+    for (let i = 0; i < 12; i++) {
+      clearDraft(`climate:t:${i}`);
+      clearDraft(`climate:rh:${i}`);
+    }
+    set(next);
+  };
   const setMonth = (i: number, patch: Partial<ClimateData['months'][number]>) => set({ ...climate, months: climate.months.map((m, k) => (k === i ? { ...m, ...patch } : m)) });
   const indoor = climate.indoor;
   const byClass = 'humidityClass' in indoor;
@@ -73,7 +82,7 @@ export default function ClimateEditor({ climate, readOnly }: { climate: ClimateD
       return;
     }
     setProblems([]);
-    set({ ...climate, months: r.months });
+    replaceMonths({ ...climate, months: r.months });
     setNote(`Twelve months read from ${from}.`);
     setPasting(false);
     setText('');
@@ -90,7 +99,7 @@ export default function ClimateEditor({ climate, readOnly }: { climate: ClimateD
               value=""
               onChange={(e) => {
                 if (!e.target.value) return;
-                set(demoClimate(e.target.value));
+                replaceMonths(demoClimate(e.target.value));
                 setNote(`${DEMO_CLIMATES.find((d) => d.key === e.target.value)?.name ?? 'Demo climate'} set.`);
               }}
             >
