@@ -135,14 +135,14 @@ export default function MoistureResult({ assessment, month, onMonth, fills }: { 
         )}
       </p>
 
-      <div className="grid gap-3 2xl:grid-cols-2">
+      <div className="grid gap-3 xl:grid-cols-2">
         <figure className="min-w-0 rounded border border-line bg-panel p-2">
           <figcaption className="text-xs font-semibold text-ink-soft">
             <Hint text="Steady temperature profile of the month through the layers (ISO 6946 resistances, R_se 0.04 and R_si 0.13 m²K/W); saturation pressure by ISO 13788 at each depth; the vapour pressure line drawn taut under the saturation line from the outdoor to the indoor vapour pressure. Red bars mark where vapour condenses.">
               The section to scale
             </Hint>
           </figcaption>
-          <div className="w-full overflow-x-auto [&>svg]:h-auto [&>svg]:max-w-full" data-testid="glaser-thickness" dangerouslySetInnerHTML={{ __html: svgX }} />
+          <div className="w-full overflow-x-auto [&>svg]:h-auto [&>svg]:w-full" data-testid="glaser-thickness" dangerouslySetInnerHTML={{ __html: svgX }} />
         </figure>
         <figure className="min-w-0 rounded border border-line bg-panel p-2">
           <figcaption className="text-xs font-semibold text-ink-soft">
@@ -150,7 +150,7 @@ export default function MoistureResult({ assessment, month, onMonth, fills }: { 
               Against s_d
             </Hint>
           </figcaption>
-          <div className="w-full overflow-x-auto [&>svg]:h-auto [&>svg]:max-w-full" data-testid="glaser-sd" dangerouslySetInnerHTML={{ __html: svgS }} />
+          <div className="w-full overflow-x-auto [&>svg]:h-auto [&>svg]:w-full" data-testid="glaser-sd" dangerouslySetInnerHTML={{ __html: svgS }} />
         </figure>
       </div>
 
