@@ -3,7 +3,7 @@
 // the figures table with the best of each row and the difference to a baseline, the sections to
 // one scale, and the sensitivity of each
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { defaultExposure, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
+import { defaultExposure, describeSunAndSky, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
 import { CompareRunner } from '../../lib/workbench/compareRunner';
 import type { CompareOutcome } from '../../lib/workbench/compareApi';
 import type { CompareFigures, CompareSeries } from '../../lib/workbench/compare';
@@ -47,7 +47,7 @@ interface Source {
 /** the fields of an exposure set on this page: a daily sine applied to every alternative */
 interface CustomExposure {
   mean: string;
-  swing: string;
+  amplitude: string;
   peakHour: string;
   indoor: string;
   days: string;
@@ -55,7 +55,7 @@ interface CustomExposure {
 
 const CUSTOM_FIELDS: { key: keyof CustomExposure; label: string; unit: string; path: string }[] = [
   { key: 'mean', label: 'Daily mean', unit: '°C', path: 'outdoor.mean' },
-  { key: 'swing', label: 'Daily swing', unit: 'K', path: 'outdoor.swing' },
+  { key: 'amplitude', label: 'Amplitude (half the daily swing)', unit: 'K', path: 'outdoor.amplitude' },
   { key: 'peakHour', label: 'Hour of the peak', unit: 'h', path: 'outdoor.peakHour' },
   { key: 'indoor', label: 'Indoor air', unit: '°C', path: 'indoor.value' },
   { key: 'days', label: 'Days to report', unit: 'd', path: 'days' },
@@ -64,10 +64,10 @@ const CUSTOM_FIELDS: { key: keyof CustomExposure; label: string; unit: string; p
 function customFrom(e: Exposure): CustomExposure {
   const o = e.outdoor;
   const d = defaultExposure();
-  const sine = o.mode === 'sine' || o.mode === 'solair' ? o : (d.outdoor as { mean: number; swing: number; peakHour: number });
+  const sine = o.mode === 'sine' || o.mode === 'solair' ? o : (d.outdoor as { mean: number; amplitude: number; peakHour: number });
   return {
     mean: String(sine.mean),
-    swing: String(sine.swing),
+    amplitude: String(sine.amplitude),
     peakHour: String(sine.peakHour),
     indoor: String(e.indoor.mode === 'constant' ? e.indoor.value : 24),
     days: String(e.days),
@@ -80,7 +80,7 @@ function buildCustom(c: CustomExposure): { ok: true; exposure: Exposure } | { ok
   const base = defaultExposure();
   const parsed = exposureSchema.safeParse({
     ...base,
-    outdoor: { mode: 'sine', mean: n(c.mean), swing: n(c.swing), peakHour: n(c.peakHour) },
+    outdoor: { mode: 'sine', mean: n(c.mean), amplitude: n(c.amplitude), peakHour: n(c.peakHour) },
     indoor: { mode: 'constant', value: n(c.indoor) },
     days: n(c.days),
   });
@@ -506,13 +506,13 @@ function describeExposure(e: Exposure): string {
     o.mode === 'series'
       ? `an uploaded hourly series (absorptance ${o.absorptance})`
       : o.mode === 'solair'
-        ? `a sol-air day: air ${o.mean} °C ± ${o.swing / 2} K peaking at ${o.peakHour} h, sun up to ${o.peakIrradiance} W/m² on the face (absorptance ${o.absorptance})`
-        : `a daily sine: ${o.mean} °C ± ${o.swing / 2} K peaking at ${o.peakHour} h`;
+        ? `a sol-air day: air ${o.mean} °C ± ${o.amplitude} K peaking at ${o.peakHour} h; ${describeSunAndSky(o) ?? ''} (absorptance ${o.absorptance})`
+        : `a daily sine: ${o.mean} °C ± ${o.amplitude} K peaking at ${o.peakHour} h`;
   const ind = e.indoor.mode === 'constant' ? `${e.indoor.value} °C indoors` : 'an indoor day schedule';
   return `Exposure for all: ${out}; ${ind}; R_se ${e.outsideSurfaceResistance}, R_si ${e.insideSurfaceResistance} m²K/W; ${e.days} reported ${e.days === 1 ? 'day' : 'days'}, step ${e.timeStep} s.`;
 }
 
-/** the line at a glance: which alternative damps the swing most, reacts latest, loses least heat, and which reach the dew point */
+/** the line at a glance: which alternative damps the swing most, reacts latest, loses least heat, and which carry a moisture risk */
 function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures[] }) {
   const pick = (v: (f: CompareFigures) => number, sign: 1 | -1) => {
     let best = -1;
@@ -525,7 +525,7 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
   const damp = pick((f) => f.decrementFactor, 1);
   const late = pick((f) => f.timeLag, -1);
   const least = pick((f) => f.heatLost, 1);
-  const risk = figures.map((f, i) => (f.belowDewPoint ? labels[i] : null)).filter(Boolean);
+  const risk = figures.map((f, i) => (f.moisture && (f.moisture.verdict === 'accumulates' || f.moisture.mouldRisk) ? labels[i] : null)).filter(Boolean);
   const item = (title: string, i: number, value: string, testId: string) => (
     <div className="rounded border border-line bg-panel px-3 py-2" data-testid={testId} data-alt={i}>
       <dt className="text-xs font-semibold text-ink-soft">{title}</dt>
@@ -541,10 +541,12 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
       {item('Damps the swing most', damp, damp >= 0 ? `decrement factor ${fixed(figures[damp].decrementFactor, 3)}` : '', 'glance-damps')}
       {item('Reacts latest', late, late >= 0 ? `time lag ${fixed(figures[late].timeLag / 3600, 2)} h` : '', 'glance-latest')}
       {item('Loses least heat', least, least >= 0 ? `${fixed(figures[least].heatLost, 1)} Wh/m² over ${fixed(figures[least].reportedDays, 0)} days` : '', 'glance-least-loss')}
-      <div className={`rounded border px-3 py-2 ${risk.length ? 'border-danger/40 bg-danger-soft' : 'border-line bg-panel'}`} data-testid="glance-dew">
-        <dt className="text-xs font-semibold text-ink-soft">Dew-point screening</dt>
-        <dd className="mt-0.5 font-semibold">{risk.length ? `${risk.join(', ')} ${risk.length === 1 ? 'reaches' : 'reach'} the dew point` : 'No interface reaches the dew point'}</dd>
-        <dd className="text-xs text-ink-soft">A screening only, not an ISO 13788 assessment.</dd>
+      <div className={`rounded border px-3 py-2 ${risk.length ? 'border-danger/40 bg-danger-soft' : 'border-line bg-panel'}`} data-testid="glance-moisture">
+        <dt className="text-xs font-semibold text-ink-soft">Moisture risk (ISO 13788)</dt>
+        <dd className="mt-0.5 font-semibold">
+          {risk.length ? `${risk.join(', ')} ${risk.length === 1 ? 'carries' : 'carry'} a condensation or mould risk` : figures.some((f) => f.moisture) ? 'None accumulates water or risks mould' : 'Not checked: no monthly climate'}
+        </dd>
+        <dd className="text-xs text-ink-soft">Steady monthly method; a hygrothermal specialist and local codes decide.</dd>
       </div>
     </dl>
   );

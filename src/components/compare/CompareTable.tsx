@@ -84,18 +84,22 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
               </tr>
             );
           })}
-          <tr className="border-b border-line/60" data-row="dewPoint">
+          <tr className="border-b border-line/60" data-row="moisture">
             <th scope="row" className="px-3 py-1.5 text-left font-normal">
-              <Hint text="The lowest interface temperature of the reported days against the dew point of the indoor air (Magnus formula at the mean indoor temperature and the exposure's relative humidity). A screening only: no vapour resistance, moisture storage or air leakage; assess condensation risk properly (EN ISO 13788) and against local codes. Marked where an interface reaches the dew point.">
-                Dew-point screening
+              <Hint text="The ISO 13788 monthly (Glaser) check of each build-up under its own monthly climate: whether vapour condenses inside it, whether it dries out within the year, and the inside surface's temperature factor against mould. Steady months and vapour diffusion only: no liquid transport, moisture storage, air leakage or rain. A hygrothermal specialist and local codes decide. Marked where vapour accumulates over the year or the surface risks mould.">
+                Moisture (ISO 13788)
               </Hint>
             </th>
-            {figures.map((f, i) => (
-              <td key={i} className={`px-3 py-1.5 text-right ${f.belowDewPoint ? 'bg-danger-soft text-danger font-semibold' : ''}`} data-alt={i} data-risk={f.belowDewPoint ? 'true' : 'false'}>
-                {f.dewPoint ? (f.belowDewPoint ? 'reaches the dew point' : 'stays above') : 'not checked'}
-                {f.dewPoint ? <span className="block text-xs font-normal text-ink-soft">dew point {fixed(f.dewPoint.value, 1)} °C</span> : null}
-              </td>
-            ))}
+            {figures.map((f, i) => {
+              const m = f.moisture;
+              const risk = m !== null && (m.verdict === 'accumulates' || m.mouldRisk);
+              return (
+                <td key={i} className={`px-3 py-1.5 text-right ${risk ? 'bg-danger-soft text-danger font-semibold' : ''}`} data-alt={i} data-risk={risk ? 'true' : 'false'}>
+                  {m ? m.label : 'not checked (no climate)'}
+                  {m && m.maxAccumulated > 0 ? <span className="block text-xs font-normal text-ink-soft">up to {fixed(m.maxAccumulated, 0)} g/m²{m.maxAtPlane ? ` at ${m.maxAtPlane}` : ''}</span> : null}
+                </td>
+              );
+            })}
           </tr>
           {MOST_ROWS.map((m) => (
             <tr key={m} className="border-b border-line/60" data-row={`most-${m}`}>
@@ -134,7 +138,7 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
             {figures.map((f, i) => (
               <td key={i} className="px-3 py-1.5 text-right text-xs text-ink-soft" data-alt={i}>
                 {f.run.cells} cells, {f.run.timeStep} s
-                <span className="block">balance error {Number.isFinite(f.run.energyBalanceError) ? f.run.energyBalanceError.toExponential(1) : '–'}</span>
+                <span className="block">bookkeeping closure {Number.isFinite(f.run.bookkeepingClosure) ? f.run.bookkeepingClosure.toExponential(1) : '–'}</span>
               </td>
             ))}
           </tr>

@@ -364,7 +364,7 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
             ))}
           </div>
         )}
-        {num('indoorRelativeHumidity', { label: 'Indoor relative humidity', unit: '%', min: 0, max: 100, inclusive: true, optional: true, extra: (v) => (v <= 0 ? 'Indoor relative humidity must be greater than 0 %' : null) }, 'For the dew-point check; leave empty to skip it')}
+        <p className="basis-full text-xs text-ink-soft">Indoor humidity and the moisture check (ISO 13788, by month) are in the Moisture pane.</p>
       </Group>
 
       <Group title="Surface resistances" help="ISO 6946 conventional values by direction of heat flow, or your own">

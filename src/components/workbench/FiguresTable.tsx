@@ -3,6 +3,7 @@ import type { RunDone } from '../../lib/workbench/runDocument';
 import { effectiveWarmupDays, type Exposure } from '../../lib/schemas/workbench';
 import { dayClock, ACCURACY_TOLERANCE } from '../../lib/workbench/figures';
 import MonthlyBars from './MonthlyBars';
+import { MOISTURE_DEFERRAL } from '../../lib/moisture/index.ts';
 
 const H = 3600;
 
@@ -143,19 +144,41 @@ export function figureRows(run: RunDone, exposure: Exposure): Row[] {
       analytic: '',
       note: `${f.lowestInterface.name}, ${dayClock(f.lowestInterface.time)}`,
       how: 'Lowest temperature of any interface between two layers at the output times of the reported days.',
-      warn: f.belowDewPoint,
     });
   }
-  if (f.dewPoint) {
+  const m = f.moisture;
+  rows.push(
+    m
+      ? {
+          key: 'moistureVerdict',
+          label: 'Moisture, interstitial (ISO 13788)',
+          unit: 'g/m²',
+          simulated: m.verdict === 'none' ? '0' : fixed(m.maxAccumulated, m.maxAccumulated >= 100 ? 0 : 1),
+          analytic: '',
+          note: m.label + (m.maxAtPlane ? `, most at ${m.maxAtPlane}` : ''),
+          how: 'Largest water held over the year by the ISO 13788 monthly Glaser method under the document’s monthly climate (steady months, vapour diffusion only, δ₀ = 2×10⁻¹⁰ kg/(m·s·Pa)); the Moisture pane shows the diagram and the months.',
+          warn: m.verdict === 'accumulates',
+        }
+      : {
+          key: 'moistureVerdict',
+          label: 'Moisture, interstitial (ISO 13788)',
+          unit: '',
+          simulated: '–',
+          analytic: '',
+          note: 'no monthly climate: set one in the Moisture pane',
+          how: 'The ISO 13788 monthly check needs twelve months of outdoor climate and the indoor air (the Moisture pane).',
+        },
+  );
+  if (m) {
     rows.push({
-      key: 'dewPoint',
-      label: 'Dew point of the indoor air',
-      unit: '°C',
-      simulated: fixed(f.dewPoint.value, 2),
+      key: 'surfaceFactor',
+      label: 'Inside surface temperature factor f_Rsi',
+      unit: '–',
+      simulated: fixed(m.fRsi, 3),
       analytic: '',
-      note: `at ${fixed(f.dewPoint.airTemperature, 1)} °C and ${fixed(f.dewPoint.relativeHumidity, 0)} % RH`,
-      how: 'Magnus formula (Alduchov & Eskridge coefficients, over water) at the mean indoor air temperature of the reported days and the indoor relative humidity.',
-      warn: f.belowDewPoint,
+      note: m.fRsiMin === null ? 'no month loses heat' : `needs ${fixed(m.fRsiMin, 3)} against mould${m.mouldRisk ? ': mould risk' : ''}`,
+      how: 'f_Rsi = 1 − R_si/R_T with R_si 0.25 m²K/W, against f_Rsi,min for 80 % surface humidity in the critical month (ISO 13788 clause 6).',
+      warn: m.mouldRisk || m.condensationRisk,
     });
   }
   rows.push(
@@ -251,15 +274,10 @@ export default function FiguresTable({ run, exposure }: { run: RunDone; exposure
         </tbody>
       </table>
       {f.monthly.length >= 2 ? <MonthlyBars months={f.monthly} /> : null}
-      {f.dewPoint ? (
-        <p className={`rounded border px-3 py-2 text-xs ${f.belowDewPoint ? 'border-danger/40 bg-danger-soft' : 'border-line bg-paper'}`} role="note" data-testid="condensation-caution">
-          {f.belowDewPoint ? (
-            <strong>An interface falls to or below the dew point of the indoor air. </strong>
-          ) : (
-            <strong>No interface falls to the dew point of the indoor air in this run. </strong>
-          )}
-          This screening assumes the indoor vapour reaches every interface unchanged; it models no vapour resistance, moisture storage or air leakage. Condensation risk must be
-          assessed properly (for example by the EN ISO 13788 method) and against local codes.
+      {f.moisture ? (
+        <p className={`rounded border px-3 py-2 text-xs ${f.moisture.verdict === 'accumulates' || f.moisture.mouldRisk ? 'border-danger/40 bg-danger-soft' : 'border-line bg-paper'}`} role="note" data-testid="moisture-figures-note">
+          <strong>{f.moisture.label}. </strong>
+          {f.moisture.text} {f.moisture.surfaceText} The monthly method is steady, models vapour diffusion only (no liquid transport, moisture storage, air leakage or rain). {MOISTURE_DEFERRAL}
         </p>
       ) : null}
       {f.notes.length > 0 ? (

@@ -153,6 +153,38 @@ export const HEAT_FLOW_DIRECTIONS = ['horizontal', 'upward', 'downward'] as cons
 export const ISO6946_RSI = { horizontal: 0.13, upward: 0.1, downward: 0.17 } as const;
 export const ISO6946_RSE = 0.04;
 
+/** one calendar month outdoors for the moisture check: mean air temperature °C and relative humidity % */
+export const climateMonthSchema = z.object({
+  temperature: num('°C').refine((v) => v >= -60 && v <= 60, { error: 'must be between −60 and 60 °C' }),
+  relativeHumidity: num('%').refine((v) => v > 0 && v <= 100, { error: 'must be between 0 and 100 %' }),
+});
+
+/** the indoor air of the moisture check: a temperature and either a fixed relative humidity (%) or an ISO 13788 humidity class 1–5 */
+export const climateIndoorSchema = z
+  .object({
+    temperature: num('°C').refine((v) => v >= 0 && v <= 40, { error: 'must be between 0 and 40 °C' }),
+    relativeHumidity: num('%').refine((v) => v > 0 && v <= 100, { error: 'must be between 0 and 100 %' }).optional(),
+    humidityClass: z
+      .number({ error: 'must be a whole number from 1 to 5' })
+      .refine((v) => Number.isInteger(v) && v >= 1 && v <= 5, { error: 'must be a whole number from 1 to 5' })
+      .optional(),
+  })
+  .superRefine((v, ctx) => {
+    const both = v.relativeHumidity !== undefined && v.humidityClass !== undefined;
+    const neither = v.relativeHumidity === undefined && v.humidityClass === undefined;
+    if (both || neither) ctx.addIssue({ code: 'custom', path: ['relativeHumidity'], message: 'give either relativeHumidity (%) or humidityClass (1–5), not both' });
+  })
+  .transform((v): { temperature: number; relativeHumidity: number } | { temperature: number; humidityClass: 1 | 2 | 3 | 4 | 5 } =>
+    v.humidityClass !== undefined ? { temperature: v.temperature, humidityClass: v.humidityClass as 1 | 2 | 3 | 4 | 5 } : { temperature: v.temperature, relativeHumidity: v.relativeHumidity as number },
+  );
+
+/** the monthly climate of the moisture check (ISO 13788): twelve months, January first, and the indoor air */
+export const climateSchema = z.object({
+  months: z.array(climateMonthSchema, { error: 'must be 12 months' }).length(12, { error: 'must hold 12 months, January first' }),
+  indoor: climateIndoorSchema,
+});
+export type ClimateData = z.output<typeof climateSchema>;
+
 export const exposureSchema = z.object({
   outdoor: outdoorSchema,
   indoor: indoorSchema,
@@ -171,6 +203,8 @@ export const exposureSchema = z.object({
   maxCellSize: num('m').refine((v) => v >= 0.0005 && v <= 0.1, { error: 'must be between 0.5 and 100 mm' }),
   /** indoor relative humidity for the dew-point check, %; null leaves the check out */
   indoorRelativeHumidity: num('%').refine((v) => v > 0 && v <= 100, { error: 'must be between 0 and 100 %' }).nullable().default(50),
+  /** the monthly climate of the moisture check; absent leaves the check out */
+  climate: climateSchema.optional(),
 });
 export type Exposure = z.output<typeof exposureSchema>;
 

@@ -6,7 +6,7 @@ import type { ModelData } from '../schemas/model.ts';
 import type { WorkbenchDocument } from '../schemas/workbench.ts';
 import type { Result } from '../thermal/types.ts';
 import { figures, splitIntegral, type RunFigures, type TimedValue } from './figures.ts';
-import { solAirSeries } from './runDocument.ts';
+import { moistureOfDocument, schemeOf, solAirSeries } from './runDocument.ts';
 
 const DAY = 86400;
 const HOUR = 3600;
@@ -35,10 +35,9 @@ export interface CompareFigures {
   heatLost: number;
   /** days in the reported period */
   reportedDays: number;
-  /** the workbench's dew-point screening (lowest interface against the dew point of the indoor air) */
-  belowDewPoint: boolean;
+  /** the ISO 13788 moisture check under the document's monthly climate; null without a climate */
+  moisture: RunFigures['moisture'];
   lowestInterface: RunFigures['lowestInterface'];
-  dewPoint: RunFigures['dewPoint'];
   /** the workbench's own figures of the run, for what the table does not repeat */
   run: RunFigures;
 }
@@ -95,12 +94,13 @@ export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Res
     interfaceNames,
     uValue: result.steady.uValue,
     analytic: result.periodic,
-    energyBalanceError: result.energy.balanceError,
+    bookkeepingClosure: result.energy.balanceError,
     cells: result.stats.cells,
     timeStep: model.timeStep,
     maxCellSize: doc.exposure.maxCellSize,
-    indoorRelativeHumidity: doc.exposure.indoorRelativeHumidity,
+    moisture: moistureOfDocument(doc),
     outdoorPeriodic: out.mode !== 'series',
+    scheme: schemeOf(result),
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
   const gain = extreme(s.time, s.insideFlux, reportStart, 1);
@@ -118,9 +118,8 @@ export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Res
     heatGained: heat.positive / HOUR,
     heatLost: -heat.negative / HOUR,
     reportedDays: (end - reportStart) / DAY,
-    belowDewPoint: run.belowDewPoint,
+    moisture: run.moisture,
     lowestInterface: run.lowestInterface,
-    dewPoint: run.dewPoint,
     run,
   };
   let first = 0;

@@ -2,7 +2,7 @@
 // pure: series in, numbers out. the simulated periodic figures come from the LAST full
 // simulated period (first harmonic by a discrete fourier sum), beside the analytic ones.
 import type { PeriodicResult } from '../thermal/types.ts';
-import { dewPoint } from '../schemas/workbench.ts';
+import type { MoistureFigures } from '../moisture/index.ts';
 
 const HOUR = 3600;
 
@@ -82,8 +82,8 @@ export interface FigureInput {
   timeStep: number;
   /** m */
   maxCellSize: number;
-  /** %, null leaves the dew-point check out */
-  indoorRelativeHumidity: number | null;
+  /** the ISO 13788 moisture check of the document (null without a climate), carried into the figures */
+  moisture?: MoistureFigures | null;
   /** every signal repeats each day (sine or sol-air day): the run started in its periodic state */
   outdoorPeriodic: boolean;
   /** the time-stepping scheme as the engine ran it, in words (e.g. "Crank–Nicolson, 864 steps") */
@@ -149,10 +149,8 @@ export interface RunFigures {
   insideSurfaceMax: TimedValue;
   /** the coldest interface over the reported days; null with a single layer */
   lowestInterface: (TimedValue & { name: string }) | null;
-  /** Magnus dew point of the indoor air at its mean temperature and the given humidity */
-  dewPoint: { value: number; airTemperature: number; relativeHumidity: number } | null;
-  /** lowest interface (or the inside surface with one layer) at or below the dew point */
-  belowDewPoint: boolean;
+  /** the ISO 13788 moisture check (interstitial and surface) under the document's monthly climate; null without one */
+  moisture: MoistureFigures | null;
   /** the engine's energy bookkeeping closure: it closes by construction of the scheme, so it says nothing of accuracy */
   bookkeepingClosure: number;
   cells: number;
@@ -256,22 +254,6 @@ export function figures(input: FigureInput): RunFigures {
     if (!lowest || m.value < lowest.value) lowest = { ...m, name: input.interfaceNames[j] ?? `interface ${j + 1}` };
   });
 
-  let dew: RunFigures['dewPoint'] = null;
-  let below = false;
-  if (input.indoorRelativeHumidity !== null) {
-    let sum = 0;
-    let count = 0;
-    for (let k = 0; k < n; k++) {
-      if (time[k] < reportStart - 1e-6) continue;
-      sum += input.insideAir[k];
-      count++;
-    }
-    const air = count > 0 ? sum / count : NaN;
-    dew = { value: dewPoint(air, input.indoorRelativeHumidity), airTemperature: air, relativeHumidity: input.indoorRelativeHumidity };
-    const coldest = (lowest as (TimedValue & { name: string }) | null)?.value ?? sMin.value;
-    below = coldest <= dew.value;
-  }
-
   // how periodic the last reported day is, on the inside heat flux relative to its amplitude
   const scale = Math.max(fluxAmplitude, 1e-3);
   const pct = `${ACCURACY_TOLERANCE * 100} %`;
@@ -332,8 +314,7 @@ export function figures(input: FigureInput): RunFigures {
     insideSurfaceMin: sMin,
     insideSurfaceMax: sMax,
     lowestInterface: lowest,
-    dewPoint: dew,
-    belowDewPoint: below,
+    moisture: input.moisture ?? null,
     bookkeepingClosure: input.bookkeepingClosure,
     cells: input.cells,
     timeStep: input.timeStep,
@@ -379,7 +360,16 @@ export function summaryOf(f: RunFigures): Record<string, number | string | null>
     insideSurfaceMaxC: round(f.insideSurfaceMax.value, 3),
     lowestInterfaceC: f.lowestInterface ? round(f.lowestInterface.value, 3) : null,
     lowestInterfaceAt: f.lowestInterface ? `${f.lowestInterface.name}, ${dayClock(f.lowestInterface.time)}` : null,
-    dewPointC: f.dewPoint ? round(f.dewPoint.value, 3) : null,
+    moistureVerdict: f.moisture ? f.moisture.verdict : null,
+    moistureMaxAccumulatedGm2: f.moisture ? round(f.moisture.maxAccumulated, 2) : null,
+    moistureDriesOut: f.moisture ? (f.moisture.driesOut ? 'yes' : 'no') : null,
+    moistureMaxAt: f.moisture?.maxAtPlane ?? null,
+    moistureCondensingMonths: f.moisture ? f.moisture.condensingMonths : null,
+    surfaceFRsi: f.moisture ? round(f.moisture.fRsi, 4) : null,
+    surfaceFRsiMin: f.moisture?.fRsiMin != null ? round(f.moisture.fRsiMin, 4) : null,
+    surfaceCriticalMonth: f.moisture?.criticalMonth ?? null,
+    surfaceMouldRisk: f.moisture ? (f.moisture.mouldRisk ? 'yes' : 'no') : null,
+    surfaceCondensationRisk: f.moisture ? (f.moisture.condensationRisk ? 'yes' : 'no') : null,
     bookkeepingClosure: Number.isFinite(f.bookkeepingClosure) ? f.bookkeepingClosure : null,
     accuracyEstimatePercent: f.accuracy ? round(f.accuracy.relative * 100, 3) : null,
     accuracyMaxDifferenceWm2: f.accuracy ? round(f.accuracy.maxDifference, 4) : null,

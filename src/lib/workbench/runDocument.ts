@@ -6,6 +6,7 @@ import { workbenchDocumentSchema, toModel, effectiveWarmupDays, isRepeatingExpos
 import { simulate, SimulationCancelled, analyse, compileSignal, signalAt, solAirTemperature } from '../thermal/index.ts';
 import type { Figures as AnalyticFigures, Result } from '../thermal/types.ts';
 import { figures, type AccuracyEstimate, type RunFigures } from './figures.ts';
+import { assessDocument, moistureFigures } from '../moisture/index.ts';
 
 const DAY = 86400;
 
@@ -156,7 +157,7 @@ export function simulateDocument(input: unknown, upload?: UploadedSeries | null,
     cells: result.stats.cells,
     timeStep: model.timeStep,
     maxCellSize: doc.exposure.maxCellSize,
-    indoorRelativeHumidity: doc.exposure.indoorRelativeHumidity,
+    moisture: moistureOfDocument(doc),
     outdoorPeriodic: repeating && out.mode !== 'series',
     scheme: schemeOf(result),
     accuracy: coarse && coarseModel ? accuracyOf(s.time, s.insideFlux, reportStart, coarse, coarseModel) : null,
@@ -218,6 +219,12 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
     elapsedMs: result.stats.elapsedMs,
     steps: result.stats.steps,
   };
+}
+
+/** the ISO 13788 check of the document's layers under its monthly climate; null without a climate or a μ */
+export function moistureOfDocument(doc: WorkbenchDocument): RunFigures['moisture'] {
+  const a = assessDocument(doc);
+  return a ? moistureFigures(a) : null;
 }
 
 /** the sol-air temperature at the output times (equals the outside air without sun); compare reuses it */

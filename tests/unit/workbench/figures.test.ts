@@ -143,19 +143,27 @@ describe('figures of a simulated run', () => {
     expect(cold.figures.notes.join(' ')).toMatch(/fitted and approximate/);
   });
 
-  it('finds the lowest interface temperature and compares it with the Magnus dew point of the indoor air', () => {
+  it('finds the lowest interface and carries the ISO 13788 moisture check of a document with a climate into the figures and the summary', () => {
     const doc = concreteWall(1, 2);
     doc.exposure.outdoor = { mode: 'sine', mean: -5, amplitude: 3, peakHour: 14 };
     doc.exposure.indoor = { mode: 'constant', value: 20 };
-    doc.exposure.indoorRelativeHumidity = 60;
     const out = runDocument(doc);
     if (out.kind !== 'done') throw new Error('run failed');
-    const f = out.figures;
-    expect(f.lowestInterface?.name).toBe('Dense concrete / Mineral wool');
-    expect(f.dewPoint?.value).toBeCloseTo(dewPoint(20, 60), 10);
-    // insulation inside: the concrete behind it is near the outdoor temperature, far below the dew point
-    expect(f.lowestInterface!.value).toBeLessThan(f.dewPoint!.value);
-    expect(f.belowDewPoint).toBe(true);
+    expect(out.figures.lowestInterface?.name).toBe('Dense concrete / Mineral wool');
+    // no μ and no climate: no moisture figures
+    expect(out.figures.moisture).toBeNull();
+    expect(summaryOf(out.figures).moistureVerdict).toBeNull();
+    // insulation outside a vapour-tight concrete (μ 120) under a cold year: nothing condenses (common practice)
+    doc.layers = [{ ...doc.layers[1], vapourResistanceFactor: 1 }, { ...doc.layers[0], vapourResistanceFactor: 120 }];
+    doc.exposure.climate = { months: Array.from({ length: 12 }, (_, i) => ({ temperature: i < 3 || i > 9 ? -5 : 12, relativeHumidity: 85 })), indoor: { temperature: 20, relativeHumidity: 50 } };
+    const wet = runDocument(doc);
+    if (wet.kind !== 'done') throw new Error('run failed');
+    expect(wet.figures.moisture?.verdict).toBe('none');
+    const summary = summaryOf(wet.figures);
+    expect(summary.moistureVerdict).toBe('none');
+    expect(summary.moistureDriesOut).toBe('yes');
+    expect(summary.surfaceMouldRisk).toBe('no');
+    expect(summary.surfaceFRsi).toBeGreaterThan(0.9);
   });
 
   it('reports no simulated decrement factor when the outdoor air does not swing', () => {
@@ -179,7 +187,7 @@ describe('figures()', () => {
       time, reportStart: 0, period: DAY, outsideAir: air, solAir: air, insideAir: flat, insideSurface: flat, insideFlux: flux,
       interfaces: [], interfaceNames: [], uValue: 0.4,
       analytic: { period: DAY, periodicTransmittance: 0.16, decrementFactor: 0.4, timeLag: 8 * 3600, admittanceInside: 0, arealHeatCapacityInside: 0 },
-      bookkeepingClosure: 0, cells: 10, timeStep: 300, maxCellSize: 0.005, indoorRelativeHumidity: null, outdoorPeriodic: true, indoorConstant: true,
+      bookkeepingClosure: 0, cells: 10, timeStep: 300, maxCellSize: 0.005, outdoorPeriodic: true, indoorConstant: true,
     });
     expect(f.periodicTransmittance.simulated).toBeCloseTo(0.16, 10);
     expect(f.decrementFactor.simulated).toBeCloseTo(0.4, 10);
@@ -194,7 +202,7 @@ describe('figures()', () => {
     expect(f.totalHeatLost).toBe(0);
     expect(f.monthly).toEqual([]);
     expect(f.periodic.reached).toBe(true);
-    expect(f.dewPoint).toBeNull();
+    expect(f.moisture).toBeNull();
   });
 });
 
@@ -209,7 +217,7 @@ describe('figures() of a long run', () => {
       time, reportStart: 0, period: DAY, outsideAir: flat, solAir: flat, insideAir: flat, insideSurface: flat, insideFlux: flux,
       interfaces: [], interfaceNames: [], uValue: 0.4,
       analytic: { period: DAY, periodicTransmittance: 0.16, decrementFactor: 0.4, timeLag: 8 * 3600, admittanceInside: 0, arealHeatCapacityInside: 0 },
-      bookkeepingClosure: 0, cells: 10, timeStep: 3600, maxCellSize: 0.005, indoorRelativeHumidity: null, outdoorPeriodic: false, indoorConstant: true,
+      bookkeepingClosure: 0, cells: 10, timeStep: 3600, maxCellSize: 0.005, outdoorPeriodic: false, indoorConstant: true,
     });
     // the yearly cosine's positive half: ∫ 2 cos over half a year = 2·YEAR/π J/m² → kWh/m² (the daily ripple adds a little where both signs meet)
     const half = (2 * YEAR) / Math.PI / 3.6e6;
