@@ -51,7 +51,7 @@ describe('a kept run', () => {
     await exposure.getByLabel('Days to report').fill('3');
     await exposure.getByLabel('Daily mean').fill('27');
     await pane.getByTestId('run-comparison').waitFor({ timeout: 30_000 });
-    await expect(pane.getByTestId('run-origin').textContent()).resolves.toBe('Unsaved run');
+    await expect(pane.getByTestId('run-state').textContent()).resolves.toMatch(/^Unsaved run/);
     const row = pane.getByTestId('run-comparison').locator('[data-compare="peakInsideFluxWm2"]');
     await expect(row.locator('td').nth(0).textContent()).resolves.toBe(formatFigure('peakInsideFluxWm2', record.summary.peakInsideFluxWm2));
     await expect(row.locator('td').nth(2).textContent()).resolves.toMatch(/^\+\d/);

@@ -58,6 +58,19 @@ describe('the Shared view', () => {
     await expect(res.text()).resolves.toContain('This link was withdrawn');
   });
 
+  it('has its Report as the team reads it, with the PDF link', async () => {
+    const { page, context, errors } = await openPage(browser(), { userId: DEMO.checker, viewport: { width: 1100, height: 900 } });
+    const res = await page.goto(`/assemblies/${record.assemblyId}/report`);
+    expect(res?.status()).toBe(200);
+    await expect(page.getByTestId('report-pdf').getAttribute('href')).resolves.toBe(`/assemblies/${record.assemblyId}/report.pdf?revision=${record.revisionNumber}`);
+    await expect(page.getByTestId('check-trail').textContent()).resolves.toContain(record.notes.checked);
+    await screenshot(page, 'report');
+    await page.emulateMedia({ media: 'print' });
+    await expect(page.getByTestId('report-pdf').isVisible()).resolves.toBe(false);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('hydrates the playback on top with JavaScript', async () => {
     const fresh = await issuedRecord();
     const guest = await openPage(browser());

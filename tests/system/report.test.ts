@@ -56,7 +56,8 @@ describe('the Report', () => {
     const bytes = new Uint8Array(await res.arrayBuffer());
     mkdirSync(ARTIFACTS, { recursive: true });
     writeFileSync(`${ARTIFACTS}/report.pdf`, bytes);
-    const parser = new PDFParse({ data: bytes });
+    // the parser takes its buffer over: give it a copy
+    const parser = new PDFParse({ data: bytes.slice() });
     const text = flat((await parser.getText()).text);
     await parser.destroy();
     for (const n of Object.values(record.notes)) expect(text).toContain(n);

@@ -28,6 +28,12 @@ describe('the figure definitions', () => {
     }
   });
 
+  it('define the keys the exposure and moisture work adds to kept runs, and write their codes in words', () => {
+    for (const k of ['totalHeatGainedKWhm2', 'accuracyEstimatePercent', 'bookkeepingClosure', 'moistureVerdict', 'surfaceFRsi', 'surfaceCriticalMonth', 'periodicStart']) expect(labelOf(k), k).not.toBe(wordsOf(k));
+    expect(formatFigure('moistureVerdict', 'driesOut')).toBe('condenses, dries out within the year');
+    expect(formatFigure('surfaceCriticalMonth', 1)).toBe('January');
+  });
+
   it('write a key no definition names in words', () => {
     expect(wordsOf('heatLostYearWhm2')).toBe('Heat lost year whm2');
     expect(labelOf('somethingNew')).toBe('Something new');
