@@ -3,7 +3,7 @@
 // the figures table with the best of each row and the difference to a baseline, the sections to
 // one scale, and the sensitivity of each
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { defaultExposure, describeSunAndSky, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
+import { defaultExposure, describeSunAndSky, effectiveWarmupDays, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
 import { CompareRunner } from '../../lib/workbench/compareRunner';
 import type { CompareOutcome } from '../../lib/workbench/compareApi';
 import type { CompareFigures, CompareSeries } from '../../lib/workbench/compare';
@@ -211,7 +211,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
   // the documents as compared: each build-up under the one exposure
   const docs = useMemo(() => (exposure ? picked.map((s) => (s.doc ? { ...s.doc, exposure } : null)) : []), [picks.join(','), sources, exposure]); // eslint-disable-line react-hooks/exhaustive-deps
   const ready = exposure !== null && docs.length > 0 && docs.every((d) => d !== null) && (uploadId === null || uploadSeries !== null);
-  const totalDays = exposure ? exposure.days + exposure.warmupDays : 0;
+  const totalDays = exposure ? exposure.days + effectiveWarmupDays(exposure) : 0;
 
   // keep the choice in the address, so the view can be reopened or sent to a colleague of the team
   useEffect(() => {
