@@ -53,6 +53,6 @@ export function runLines(e: Exposure): [string, string][] {
         ? `${e.days} ${e.days === 1 ? 'day' : 'days'} reported after ${effectiveWarmupDays(e)} warm-up ${effectiveWarmupDays(e) === 1 ? 'day' : 'days'}`
         : `${e.days} ${e.days === 1 ? 'day' : 'days'} reported, starting in the periodic state of the repeating day`,
     ],
-    ['Engine', `Crank–Nicolson with backward-Euler start-up sub-steps after jumps; time step ${e.timeStep} s; largest cell ${num(e.maxCellSize * 1000, 1)} mm; at least 4 cells per layer`],
+    ['Engine', `Crank–Nicolson; time step ${e.timeStep} s; largest cell ${num(e.maxCellSize * 1000, 1)} mm; at least 4 cells per layer; backward-Euler start-up sub-steps after a jump of the driving temperature`],
   ];
 }
