@@ -35,7 +35,7 @@ const ROW = 6 * LANES;
  * upper coefficient of its inside node is 1 so the inside boundary term can ride in the next row's slot of x
  * (thetaStep adds bN there; 1·bN adds exactly the same number).
  */
-function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Float64Array {
+export function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Float64Array {
   const c = new Float64Array(ROW * (rows + 1));
   for (let k = 0; k < steppings.length; k++) {
     const s = steppings[k];
@@ -62,7 +62,7 @@ function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Float64A
  * x[LANES·n_k + k] must hold lane k's bN on entry (it is 0 again on exit). the old values of x ride in
  * registers (previous, current, next per lane) as in thetaStep().
  */
-function packedStep(c: Float64Array, x: Float64Array, rows: number, b0: Float64Array): void {
+export function packedStep(c: Float64Array, x: Float64Array, rows: number, b0: Float64Array): void {
   let xp0 = x[0];
   let xp1 = x[1];
   let xp2 = x[2];
