@@ -27,7 +27,7 @@ import type { Model, Result, SimulateOptions } from './types.ts';
 export const LANES = 4;
 
 /** one stepping of up to four models, packed row by row ([node][coefficient][lane]) and padded */
-interface Packed {
+export interface Packed {
   /** the coefficients; per row either six blocks of four lanes (lower, 1/den, upper′, E lower, E diag, E upper) or,
    * when E lower = −M lower everywhere (crank–nicolson: both are ½ of the conductance), five without E lower */
   c: Float64Array;
@@ -39,7 +39,7 @@ interface Packed {
  * inside node are empty (zero inverse), and the explicit upper coefficient of its inside node is 1 so the inside
  * boundary term can ride in the next row's slot of x (thetaStep adds bN there; 1·bN adds exactly the same number).
  */
-function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Packed {
+export function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Packed {
   let five = true;
   for (const s of steppings) {
     if (!s) continue;
@@ -80,7 +80,7 @@ function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Packed {
  * x[LANES·n_k + k] must hold lane k's bN on entry (it is 0 again on exit). the old values of x ride in registers
  * (previous, current, next per lane) as in thetaStep().
  */
-function packedStep(p: Packed, x: Float64Array, rows: number, b0: Float64Array): void {
+export function packedStep(p: Packed, x: Float64Array, rows: number, b0: Float64Array): void {
   if (p.five) packedStepFive(p.c, x, rows, b0);
   else packedStepSix(p.c, x, rows, b0);
 }

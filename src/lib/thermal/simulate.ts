@@ -305,8 +305,10 @@ export function prepareRun(model: Model, options: SimulateOptions = {}): Run {
 
   const kinds = plan(model, outside, inside, theta, dt, duration, steps, restarts);
   const account = schemeAccount(kinds, theta);
-  const full = stepSet(mesh, outside, inside, dt, theta, restarts);
-  const tail = remainder > 0 ? stepSet(mesh, outside, inside, remainder, theta, restarts) : null;
+  // restart steppings only where the plan (or the periodic start's own plan of one period) can use them
+  const anyRestart = kinds.some((k) => k !== STEP_FULL);
+  const full = stepSet(mesh, outside, inside, dt, theta, restarts && (anyRestart || model.initial.kind === 'periodic'));
+  const tail = remainder > 0 ? stepSet(mesh, outside, inside, remainder, theta, restarts && kinds[steps - 1] !== STEP_FULL) : null;
 
   // initial state
   const T = new Float64Array(nodes);
