@@ -2,6 +2,7 @@
 // messages read `path: message` through formatIssues(), e.g. `layers[1].thickness: must be greater than 0 m`.
 import { z } from 'zod';
 import { countCells } from '../thermal/mesh.ts';
+import { commonPeriod } from '../thermal/signals.ts';
 import type { Model as EngineModel } from '../thermal/types.ts';
 
 /** ten years of 365.25 days, s */
@@ -111,6 +112,8 @@ export const outsideSchema = z.object(
         required('an object'),
       )
       .optional(),
+    // W/m², positive = loss to sky and surroundings; subtracted as netLoss·surfaceResistance from the sol-air temperature
+    longWave: z.object({ netLoss: signalSchema }, required('an object')).optional(),
   },
   required('an object'),
 );
@@ -125,13 +128,14 @@ export const initialSchema = z.discriminatedUnion(
   [
     z.object({ kind: z.literal('uniform'), temperature: finite('°C') }),
     z.object({ kind: z.literal('steady') }),
+    z.object({ kind: z.literal('periodic') }),
   ],
   {
     error: (issue) => {
       const input = issue.input as unknown;
       if (input === undefined) return 'is required';
       if (typeof input !== 'object' || input === null || Array.isArray(input)) return 'must be an object';
-      return `must be "uniform" or "steady" (got ${JSON.stringify((input as { kind?: unknown }).kind) ?? 'nothing'})`;
+      return `must be "uniform", "steady" or "periodic" (got ${JSON.stringify((input as { kind?: unknown }).kind) ?? 'nothing'})`;
     },
   },
 );
@@ -172,6 +176,10 @@ export const modelSchema = z
     required('a model object'),
   )
   .superRefine((m, ctx) => {
+    if (m.initial.kind === 'periodic') {
+      const p = commonPeriod(m);
+      if (!p.ok) ctx.addIssue({ code: 'custom', path: ['initial', 'kind'], message: p.message });
+    }
     const cells = countCells(m.layers, m.mesh);
     if (cells > MAX_CELLS) {
       ctx.addIssue({

@@ -1,5 +1,5 @@
 // boundary signals: constant, sine, series. evaluation is branch + arithmetic only, so it can sit in the time loop.
-import type { Signal } from './types.ts';
+import type { Model, Signal } from './types.ts';
 
 const KIND_CONSTANT = 0;
 const KIND_SINE = 1;
@@ -82,30 +82,51 @@ export function signalRate(s: CompiledSignal, t: number, h: number): number {
   return (signalAt(s, t + h) - signalAt(s, t - h)) / (2 * h);
 }
 
-/**
- * a change larger than this (K or W/m²) within one time step counts as a jump:
- * crank-nicolson cannot resolve it and rings, so the stepper restarts with implicit half-steps.
- */
-export const JUMP_THRESHOLD = 1;
+/** the period of a repeating signal, s: null for a constant (it repeats with any period), undefined when it does not repeat */
+export function signalPeriod(signal: Signal): number | null | undefined {
+  if (signal.kind === 'constant') return null;
+  if (signal.kind === 'sine') return signal.period;
+  if (signal.repeat === true) return signal.values.length * signal.step;
+  return signal.values.length === 1 ? null : undefined;
+}
+
+/** every signal of a model with its path, outside first */
+export function modelSignals(model: Pick<Model, 'outside' | 'inside'>): { path: string; signal: Signal }[] {
+  const out: { path: string; signal: Signal }[] = [{ path: 'outside.air', signal: model.outside.air }];
+  if (model.outside.solar) out.push({ path: 'outside.solar.irradiance', signal: model.outside.solar.irradiance });
+  if (model.outside.longWave) out.push({ path: 'outside.longWave.netLoss', signal: model.outside.longWave.netLoss });
+  out.push({ path: 'inside.air', signal: model.inside.air });
+  return out;
+}
 
 /**
- * times in (0, duration) where the signal jumps as seen by a stepper of step dt.
- * constant and sine signals are smooth; a series is continuous but a change of more than
- * JUMP_THRESHOLD between samples no more than dt apart is unresolved, so its sample time counts as a jump.
+ * the common period P of a model's signals for a periodic start (engine contract, "Periodic start"):
+ * every signal must repeat; P is the longest period and every other period divides it to 1e-9 relative.
+ * period null: all signals are constant (the periodic state is the steady state).
  */
-export function jumpTimes(signal: Signal, duration: number, dt: number): number[] {
-  if (signal.kind !== 'series' || signal.step > dt || signal.values.length < 2) return [];
-  const out: number[] = [];
-  const v = signal.values;
-  const n = v.length;
-  const limit = signal.repeat ? Math.ceil(duration / signal.step) : n - 1;
-  for (let k = 1; k <= limit; k++) {
-    const t = k * signal.step;
-    if (t >= duration) break;
-    const prev = v[(k - 1) % n];
-    const cur = signal.repeat ? v[k % n] : v[k];
-    if (Math.abs(cur - prev) > JUMP_THRESHOLD) out.push(t - signal.step); // the ramp starts at the previous sample
-    if (out.length > 100000) break; // a pathological series: enough restarts to damp it, bounded work
+export function commonPeriod(
+  model: Pick<Model, 'outside' | 'inside'>,
+): { ok: true; period: number | null } | { ok: false; message: string } {
+  const signals = modelSignals(model);
+  let longest: number | null = null;
+  for (const { path, signal } of signals) {
+    const p = signalPeriod(signal);
+    if (p === undefined) {
+      return { ok: false, message: `"periodic" needs every signal to repeat, but ${path} is a series without "repeat": true` };
+    }
+    if (p !== null && (longest === null || p > longest)) longest = p;
   }
-  return out;
+  if (longest === null) return { ok: true, period: null };
+  for (const { path, signal } of signals) {
+    const p = signalPeriod(signal);
+    if (p === null || p === undefined) continue;
+    const ratio = longest / p;
+    if (Math.abs(ratio - Math.round(ratio)) > 1e-9 * ratio) {
+      return {
+        ok: false,
+        message: `"periodic" needs every period to divide the longest (${longest} s), but ${path} repeats every ${p} s`,
+      };
+    }
+  }
+  return { ok: true, period: longest };
 }

@@ -4,10 +4,12 @@ import { analyse } from './analyse.ts';
 import { drivingRate, drivingTemperature, insideBoundary, outsideBoundary, type BoundarySide } from './boundary.ts';
 import { buildMesh, type Mesh } from './mesh.ts';
 import { assembleTheta, boundaryTerm, type ThetaMatrices } from './operator.ts';
-import { jumpTimes, signalAt } from './signals.ts';
+import { jumpSteps } from './jumps.ts';
+import { periodicState, periodSampling } from './periodicStart.ts';
+import { commonPeriod, signalAt } from './signals.ts';
 import { steadyProfile } from './steady.ts';
 import { factorise, thetaStep, type ThomasFactor } from './stepper.ts';
-import type { Model, Result, SimulateOptions } from './types.ts';
+import type { Model, PeriodicStartStats, Result, SchemeAccount, SimulateOptions } from './types.ts';
 
 /** thrown by simulate() when shouldCancel() returns true */
 export class SimulationCancelled extends Error {
@@ -19,10 +21,10 @@ export class SimulationCancelled extends Error {
 
 // a monotonic clock without dom or node types: performance exists in browsers, workers and node
 const clock = (globalThis as { performance?: { now(): number } }).performance;
-const now = (): number => (clock ? clock.now() : Date.now());
+export const now = (): number => (clock ? clock.now() : Date.now());
 
 /** one step size with its matrices and factorisation */
-interface Stepping {
+export interface Stepping {
   dt: number;
   theta: number;
   matrices: ThetaMatrices;
@@ -34,8 +36,50 @@ function stepping(mesh: Mesh, outside: BoundarySide, inside: BoundarySide, dt: n
   return { dt, theta, matrices, factor: factorise(matrices.implicit) };
 }
 
+/** the steppings of one step size h: the scheme itself, and for a restart backward euler at h/4 and the scheme at h/2 */
+export interface StepSet {
+  main: Stepping;
+  quarter: Stepping | null;
+  half: Stepping | null;
+}
+
+function stepSet(mesh: Mesh, outside: BoundarySide, inside: BoundarySide, h: number, theta: number, restarts: boolean): StepSet {
+  return {
+    main: stepping(mesh, outside, inside, h, theta),
+    quarter: restarts ? stepping(mesh, outside, inside, h / 4, 1) : null,
+    half: restarts ? stepping(mesh, outside, inside, h / 2, theta) : null,
+  };
+}
+
+/**
+ * step kinds of the plan. a restart (rannacher start-up: R. Rannacher, "Finite element solution of diffusion
+ * problems with irregular data", Numer. Math. 43 (1984) 309–327; M. Luskin & R. Rannacher, "On the smoothing
+ * property of the Crank–Nicolson scheme", Applicable Anal. 14 (1982) 117–135) takes the step that holds the jump
+ * as four backward-euler quarter steps, which damp the stiff modes the jump excites, and the next step as two more
+ * quarter steps and one crank–nicolson half step, growing back to the full crank–nicolson step after it.
+ */
+export const STEP_FULL = 0;
+export const STEP_RESTART = 1;
+export const STEP_RECOVER = 2;
+
+/** sub-steps of each kind: which stepping (0 main, 1 quarter, 2 half) and the fraction of the step reached */
+export const SUBSTEPS: ReadonlyArray<ReadonlyArray<readonly [number, number]>> = [
+  [[0, 1]],
+  [
+    [1, 0.25],
+    [1, 0.5],
+    [1, 0.75],
+    [1, 1],
+  ],
+  [
+    [1, 0.25],
+    [1, 0.5],
+    [2, 1],
+  ],
+];
+
 /** mutable state of a run: arrays are preallocated, accumulators are plain numbers */
-interface RunState {
+export interface RunState {
   mesh: Mesh;
   outside: BoundarySide;
   inside: BoundarySide;
@@ -45,10 +89,33 @@ interface RunState {
   insideDrive: number;
   inOutside: number;
   outInside: number;
+  // the step in progress: drives at its end, boundary terms, and the surface temperatures before it
+  oAfter: number;
+  iAfter: number;
+  b0: number;
+  bN: number;
+  t0: number;
+  t1: number;
+  tm: number;
+  tn: number;
 }
 
-/** advances the state by one step of s from time tFrom, accumulating the θ-weighted surface fluxes */
-function advance(st: RunState, s: Stepping, tTo: number): void {
+/** first half of a step to tTo: drives, boundary terms and the surface temperatures before it */
+export function beginStep(st: RunState, s: Stepping, tTo: number): void {
+  const T = st.temperature;
+  const last = T.length - 1;
+  st.oAfter = drivingTemperature(st.outside, tTo);
+  st.iAfter = drivingTemperature(st.inside, tTo);
+  st.b0 = boundaryTerm(st.outside, s.theta, st.outsideDrive, st.oAfter);
+  st.bN = boundaryTerm(st.inside, s.theta, st.insideDrive, st.iAfter);
+  st.t0 = T[0];
+  st.t1 = T[1];
+  st.tm = T[last - 1];
+  st.tn = T[last];
+}
+
+/** second half of a step, after the solve: the θ-weighted surface fluxes from each surface node's own equation */
+export function endStep(st: RunState, s: Stepping): void {
   const T = st.temperature;
   const last = T.length - 1;
   const mesh = st.mesh;
@@ -58,23 +125,20 @@ function advance(st: RunState, s: Stepping, tTo: number): void {
   const dt = s.dt;
   const oBefore = st.outsideDrive;
   const iBefore = st.insideDrive;
-  const oAfter = drivingTemperature(out, tTo);
-  const iAfter = drivingTemperature(ins, tTo);
-  const t0 = T[0];
-  const t1 = T[1];
-  const tm = T[last - 1];
-  const tn = T[last];
-  thetaStep(s.factor, s.matrices.explicit, T, boundaryTerm(out, theta, oBefore, oAfter), boundaryTerm(ins, theta, iBefore, iAfter));
+  const oAfter = st.oAfter;
+  const iAfter = st.iAfter;
+  const t0 = st.t0;
+  const tn = st.tn;
   // surface fluxes from each surface node's own energy equation, so the account closes to round-off
   let qo: number;
   if (out.prescribed) {
     const g = mesh.conductance[0];
-    qo = (mesh.capacity[0] * (T[0] - t0)) / dt + g * (theta * (T[0] - T[1]) + (1 - theta) * (t0 - t1));
+    qo = (mesh.capacity[0] * (T[0] - t0)) / dt + g * (theta * (T[0] - T[1]) + (1 - theta) * (t0 - st.t1));
   } else qo = out.h * (theta * (oAfter - T[0]) + (1 - theta) * (oBefore - t0));
   let qi: number;
   if (ins.prescribed) {
     const g = mesh.conductance[last - 1];
-    qi = g * (theta * (T[last - 1] - T[last]) + (1 - theta) * (tm - tn)) - (mesh.capacity[last] * (T[last] - tn)) / dt;
+    qi = g * (theta * (T[last - 1] - T[last]) + (1 - theta) * (st.tm - tn)) - (mesh.capacity[last] * (T[last] - tn)) / dt;
   } else qi = ins.h * (theta * (T[last] - iAfter) + (1 - theta) * (tn - iBefore));
   st.inOutside += qo * dt;
   st.outInside += qi * dt;
@@ -82,8 +146,94 @@ function advance(st: RunState, s: Stepping, tTo: number): void {
   st.insideDrive = iAfter;
 }
 
-/** runs the model and returns the contract's Result */
-export function simulate(model: Model, options: SimulateOptions = {}): Result {
+/** advances the state by one step of s to time tTo */
+export function advance(st: RunState, s: Stepping, tTo: number): void {
+  beginStep(st, s, tTo);
+  thetaStep(s.factor, s.matrices.explicit, st.temperature, st.b0, st.bN);
+  endStep(st, s);
+}
+
+/** a run set up and ready to step: everything simulate() and simulateBatch() share */
+export interface Run {
+  model: Model;
+  started: number;
+  figures: ReturnType<typeof analyse>;
+  mesh: Mesh;
+  nodes: number;
+  theta: number;
+  dt: number;
+  duration: number;
+  /** whole steps of dt, then one shorter step of remainder if the duration is not a multiple */
+  fullSteps: number;
+  remainder: number;
+  steps: number;
+  /** per step: STEP_FULL, STEP_RESTART or STEP_RECOVER */
+  kinds: Uint8Array;
+  full: StepSet;
+  tail: StepSet | null;
+  st: RunState;
+  initial: Float64Array;
+  account: SchemeAccount;
+  periodicStart?: PeriodicStartStats;
+  periodicStartMs: number;
+  /** the profile at the start of the step in progress, kept when an output falls inside it */
+  previous: Float64Array;
+  /** outputs at k·interval ≤ duration */
+  outputs: number;
+  interval: number;
+  nextOutput: number;
+  record: (k: number, t: number, P: Float64Array) => void;
+  recordWithin: (tFrom: number, tTo: number) => void;
+  build: () => Omit<Result, 'energy' | 'stats'>;
+}
+
+/** the step plan: restarts at a uniform start and at every jump of the driving temperatures */
+function plan(
+  model: Model,
+  outside: BoundarySide,
+  inside: BoundarySide,
+  theta: number,
+  dt: number,
+  duration: number,
+  steps: number,
+  restarts: boolean,
+): Uint8Array {
+  const kinds = new Uint8Array(steps);
+  if (!restarts || theta >= 1 || steps === 0) return kinds;
+  const at = jumpSteps(outside, inside, duration, dt, steps);
+  if (model.initial.kind === 'uniform') at.unshift(0);
+  for (const n of at) {
+    kinds[n] = STEP_RESTART;
+    if (n + 1 < steps && kinds[n + 1] === STEP_FULL) kinds[n + 1] = STEP_RECOVER;
+  }
+  return kinds;
+}
+
+/** counts the steps by kind */
+function schemeAccount(kinds: Uint8Array, theta: number): SchemeAccount {
+  const a: SchemeAccount = {
+    scheme: theta >= 1 ? 'implicit' : 'crank-nicolson',
+    fullSteps: 0,
+    restarts: 0,
+    backwardEulerSubSteps: 0,
+    crankNicolsonSubSteps: 0,
+  };
+  for (let n = 0; n < kinds.length; n++) {
+    const k = kinds[n];
+    if (k === STEP_FULL) a.fullSteps++;
+    else if (k === STEP_RESTART) {
+      a.restarts++;
+      a.backwardEulerSubSteps += 4;
+    } else {
+      a.backwardEulerSubSteps += 2;
+      a.crankNicolsonSubSteps++;
+    }
+  }
+  return a;
+}
+
+/** sets up a run: mesh, boundaries, steppings, step plan, initial state (periodic start included) and outputs */
+export function prepareRun(model: Model, options: SimulateOptions = {}): Run {
   const started = now();
   const figures = analyse(model);
   const mesh = buildMesh(model.layers, model.mesh);
@@ -94,11 +244,7 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
   const dt = model.timeStep;
   const duration = model.duration;
   const storeProfiles = options.storeProfiles !== false;
-  const every = Math.max(1, Math.floor(options.progressEvery ?? 4096));
-  const onProgress = options.onProgress;
-  const shouldCancel = options.shouldCancel;
-  // rannacher start-up: backward-euler half-steps (an even number, covering whole steps) at the start and after jumps
-  const halfSteps = theta < 1 ? 2 * Math.ceil(Math.max(0, options.startupHalfSteps ?? 4) / 2) : 0;
+  const restarts = options.restart !== false && theta < 1;
 
   if (!(dt > 0) || !(duration >= 0) || !(model.outputInterval > 0)) throw new Error('invalid time settings');
 
@@ -108,17 +254,10 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
   if (remainder <= 1e-9 * dt) remainder = 0;
   const steps = fullSteps + (remainder > 0 ? 1 : 0);
 
-  const main = stepping(mesh, outside, inside, dt, theta);
-  const half = halfSteps > 0 ? stepping(mesh, outside, inside, dt / 2, 1) : null;
-  const tail = remainder > 0 ? stepping(mesh, outside, inside, remainder, theta) : null;
-
-  // jumps of the signals, sorted; a whole step containing one restarts with half-steps
-  const jumps: number[] = [];
-  if (halfSteps > 0) {
-    jumps.push(...jumpTimes(model.outside.air, duration, dt), ...jumpTimes(model.inside.air, duration, dt));
-    if (model.outside.solar && model.outside.surfaceResistance > 0) jumps.push(...jumpTimes(model.outside.solar.irradiance, duration, dt));
-    jumps.sort((a, b) => a - b);
-  }
+  const kinds = plan(model, outside, inside, theta, dt, duration, steps, restarts);
+  const account = schemeAccount(kinds, theta);
+  const full = stepSet(mesh, outside, inside, dt, theta, restarts);
+  const tail = remainder > 0 ? stepSet(mesh, outside, inside, remainder, theta, restarts) : null;
 
   // initial state
   const T = new Float64Array(nodes);
@@ -131,9 +270,23 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
     insideDrive: drivingTemperature(inside, 0),
     inOutside: 0,
     outInside: 0,
+    oAfter: 0,
+    iAfter: 0,
+    b0: 0,
+    bN: 0,
+    t0: 0,
+    t1: 0,
+    tm: 0,
+    tn: 0,
   };
+  let periodicStart: PeriodicStartStats | undefined;
+  let periodicStartMs = 0;
   if (model.initial.kind === 'uniform') T.fill(model.initial.temperature);
-  else steadyProfile(mesh, outside, inside, st.outsideDrive, st.insideDrive, T);
+  else if (model.initial.kind === 'periodic') {
+    const psStarted = now();
+    periodicStart = startPeriodic(model, mesh, outside, inside, theta, dt, full, T);
+    periodicStartMs = now() - psStarted;
+  } else steadyProfile(mesh, outside, inside, st.outsideDrive, st.insideDrive, T);
   const initial = Float64Array.from(T);
 
   // outputs at k·outputInterval ≤ duration
@@ -171,55 +324,102 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
     if (storeProfiles) profiles.push(Array.from(P));
   };
 
-  let nextOutput = 0;
   const eps = 1e-9 * Math.min(dt, interval);
-  record(nextOutput++, 0, T);
-
-  // records every output in (tFrom, tTo], interpolating linearly inside the step
-  const recordWithin = (tFrom: number, tTo: number): void => {
-    while (nextOutput < outputs) {
-      const tOut = nextOutput * interval;
-      if (tOut > tTo + eps) break;
-      if (Math.abs(tOut - tTo) <= eps) record(nextOutput, tOut, T);
-      else {
-        const f = (tOut - tFrom) / (tTo - tFrom);
-        for (let i = 0; i < nodes; i++) sample[i] = previous[i] + f * (T[i] - previous[i]);
-        record(nextOutput, tOut, sample);
+  const run: Run = {
+    model,
+    started,
+    figures,
+    mesh,
+    nodes,
+    theta,
+    dt,
+    duration,
+    fullSteps,
+    remainder,
+    steps,
+    kinds,
+    full,
+    tail,
+    st,
+    initial,
+    account,
+    periodicStart,
+    periodicStartMs,
+    previous,
+    outputs,
+    interval,
+    nextOutput: 0,
+    record,
+    // records every output in (tFrom, tTo], interpolating linearly inside the step
+    recordWithin: (tFrom: number, tTo: number): void => {
+      while (run.nextOutput < outputs) {
+        const tOut = run.nextOutput * interval;
+        if (tOut > tTo + eps) break;
+        if (Math.abs(tOut - tTo) <= eps) record(run.nextOutput, tOut, T);
+        else {
+          const f = (tOut - tFrom) / (tTo - tFrom);
+          for (let i = 0; i < nodes; i++) sample[i] = previous[i] + f * (T[i] - previous[i]);
+          record(run.nextOutput, tOut, sample);
+        }
+        run.nextOutput++;
       }
-      nextOutput++;
-    }
+    },
+    build: () => ({
+      steady: figures.steady,
+      layers: figures.layers.map((l) => ({
+        name: l.name,
+        resistance: l.resistance,
+        diffusivity: l.diffusivity,
+        arealHeatCapacity: l.arealHeatCapacity,
+        penetrationDepth: l.penetrationDepth,
+      })),
+      lumped: figures.lumped,
+      periodic: figures.periodic,
+      mesh: { x: Array.from(mesh.x) },
+      series: {
+        time: Array.from(time),
+        outsideAir: Array.from(outsideAir),
+        outsideSurface: Array.from(outsideSurface),
+        insideSurface: Array.from(insideSurface),
+        insideAir: Array.from(insideAir),
+        interfaces: interfaces.map((a) => Array.from(a)),
+        outsideFlux: Array.from(outsideFlux),
+        insideFlux: Array.from(insideFlux),
+      },
+      profiles,
+    }),
   };
+  record(run.nextOutput++, 0, T);
+  return run;
+}
 
-  let halfLeft = halfSteps;
-  let jump = 0;
-  for (let n = 0; n < fullSteps; n++) {
-    const tFrom = n * dt;
-    const tTo = (n + 1) * dt;
-    while (jump < jumps.length && jumps[jump] < tTo - eps) {
-      if (jumps[jump] >= tFrom - eps) halfLeft = halfSteps;
-      jump++;
-    }
-    const interior = nextOutput < outputs && nextOutput * interval < tTo - eps;
-    if (interior) previous.set(T);
-    if (halfLeft > 0 && half) {
-      advance(st, half, tFrom + 0.5 * dt);
-      advance(st, half, tTo);
-      halfLeft -= 2;
-    } else advance(st, main, tTo);
-    if (nextOutput < outputs && nextOutput * interval <= tTo + eps) recordWithin(tFrom, tTo);
-    if ((n + 1) % every === 0) {
-      if (shouldCancel && shouldCancel()) throw new SimulationCancelled();
-      if (onProgress) onProgress((n + 1) / steps);
-    }
+/** the periodic start: the discrete scheme's own periodic state at t = 0 (periodicStart.ts) */
+function startPeriodic(
+  model: Model,
+  mesh: Mesh,
+  outside: BoundarySide,
+  inside: BoundarySide,
+  theta: number,
+  dt: number,
+  full: StepSet,
+  T: Float64Array,
+): PeriodicStartStats {
+  const common = commonPeriod(model);
+  if (!common.ok) throw new Error(`initial.kind: ${common.message}`);
+  if (common.period === null) {
+    steadyProfile(mesh, outside, inside, drivingTemperature(outside, 0), drivingTemperature(inside, 0), T);
+    return { period: 0, samples: 1, stepSize: dt, solves: 1, correctionPeriods: 0, elapsedMs: 0, costPeriods: 0 };
   }
-  if (tail) {
-    const tFrom = fullSteps * dt;
-    previous.set(T);
-    advance(st, tail, duration);
-    recordWithin(tFrom, duration);
-  }
-  if (onProgress) onProgress(1);
+  const P = common.period;
+  const { stepSize } = periodSampling(P, dt);
+  const info = periodicState(mesh, outside, inside, theta, P, dt, T, stepSize === dt ? full.main.matrices : undefined);
+  return { ...info, correctionPeriods: 0, elapsedMs: 0, costPeriods: 0 };
+}
 
+/** the tail of a run: energy account, stats and the Result */
+export function finishRun(run: Run, steppingMs: number): Result {
+  const { nodes, mesh, st, initial } = run;
+  const T = st.temperature;
   let stored = 0;
   for (let i = 0; i < nodes; i++) {
     if (!Number.isFinite(T[i])) throw new Error('the simulation produced a non-finite temperature');
@@ -228,31 +428,68 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
   const { inOutside, outInside } = st;
   const balanceError =
     Math.abs(inOutside - outInside - stored) / Math.max(Math.abs(inOutside), Math.abs(outInside), Math.abs(stored), 1);
+  let periodicStart: PeriodicStartStats | undefined;
+  if (run.periodicStart) {
+    // cost in periods' worth of this run's own stepping: wall time per step × steps per period
+    const perStep = run.steps > 0 ? steppingMs / run.steps : 0;
+    const perPeriod = perStep * (run.periodicStart.period / run.dt);
+    periodicStart = {
+      ...run.periodicStart,
+      elapsedMs: run.periodicStartMs,
+      costPeriods: perPeriod > 0 ? run.periodicStartMs / perPeriod : 0,
+    };
+  }
 
   return {
-    steady: figures.steady,
-    layers: figures.layers.map((l) => ({
-      name: l.name,
-      resistance: l.resistance,
-      diffusivity: l.diffusivity,
-      arealHeatCapacity: l.arealHeatCapacity,
-      penetrationDepth: l.penetrationDepth,
-    })),
-    lumped: figures.lumped,
-    periodic: figures.periodic,
-    mesh: { x: Array.from(mesh.x) },
-    series: {
-      time: Array.from(time),
-      outsideAir: Array.from(outsideAir),
-      outsideSurface: Array.from(outsideSurface),
-      insideSurface: Array.from(insideSurface),
-      insideAir: Array.from(insideAir),
-      interfaces: interfaces.map((a) => Array.from(a)),
-      outsideFlux: Array.from(outsideFlux),
-      insideFlux: Array.from(insideFlux),
-    },
-    profiles,
+    ...run.build(),
     energy: { storedChange: stored, inOutside, outInside, balanceError },
-    stats: { cells: mesh.cells, steps, nodeSteps: mesh.cells * steps, elapsedMs: now() - started },
+    stats: {
+      cells: mesh.cells,
+      steps: run.steps,
+      nodeSteps: mesh.cells * run.steps,
+      elapsedMs: now() - run.started,
+      scheme: run.account,
+      ...(periodicStart ? { periodicStart } : {}),
+    },
   };
+}
+
+/** runs the model and returns the contract's Result */
+export function simulate(model: Model, options: SimulateOptions = {}): Result {
+  const run = prepareRun(model, options);
+  const every = Math.max(1, Math.floor(options.progressEvery ?? 4096));
+  const onProgress = options.onProgress;
+  const shouldCancel = options.shouldCancel;
+  const { st, kinds, fullSteps, dt, steps, previous, full } = run;
+  const T = st.temperature;
+  const steppingStarted = now();
+  for (let n = 0; n < steps; n++) {
+    const isTail = n === fullSteps;
+    const set = isTail ? (run.tail as StepSet) : full;
+    const h = isTail ? run.remainder : dt;
+    const tFrom = n * dt;
+    const tTo = isTail ? run.duration : (n + 1) * dt;
+    const interior = run.nextOutput < run.outputs && run.nextOutput * run.interval < tTo - 1e-9 * Math.min(dt, run.interval);
+    if (interior) previous.set(T);
+    const kind = kinds[n];
+    if (kind === STEP_FULL) advance(st, set.main, tTo);
+    else {
+      const subs = SUBSTEPS[kind];
+      for (let j = 0; j < subs.length; j++) {
+        const [which, f] = subs[j];
+        const s = which === 0 ? set.main : which === 1 ? (set.quarter as Stepping) : (set.half as Stepping);
+        advance(st, s, f === 1 ? tTo : tFrom + f * h);
+      }
+    }
+    if (run.nextOutput < run.outputs && run.nextOutput * run.interval <= tTo + 1e-9 * Math.min(dt, run.interval)) {
+      run.recordWithin(tFrom, tTo);
+    }
+    if ((n + 1) % every === 0) {
+      if (shouldCancel && shouldCancel()) throw new SimulationCancelled();
+      if (onProgress) onProgress((n + 1) / steps);
+    }
+  }
+  const steppingMs = now() - steppingStarted;
+  if (onProgress) onProgress(1);
+  return finishRun(run, steppingMs);
 }

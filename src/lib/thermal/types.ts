@@ -55,6 +55,11 @@ export interface OutsideBoundary {
   air: Signal;
   /** sol-air temperature = air + absorptance·irradiance·surfaceResistance */
   solar?: { absorptance: number; irradiance: Signal };
+  /**
+   * net long-wave loss of the outer surface to sky and surroundings, W/m² (positive = loss);
+   * subtracts netLoss·surfaceResistance from the sol-air temperature (ignored with surfaceResistance 0, like solar)
+   */
+  longWave?: { netLoss: Signal };
 }
 
 /** inside boundary: film and room air temperature */
@@ -64,8 +69,11 @@ export interface InsideBoundary {
   air: Signal;
 }
 
-/** uniform temperature, or the steady profile for the signals' values at t = 0 */
-export type InitialState = { kind: 'uniform'; temperature: number } | { kind: 'steady' };
+/**
+ * uniform temperature; the steady profile for the signals' values at t = 0; or the periodic steady state
+ * of signals that all repeat (constant, sine, series with repeat) with a common period
+ */
+export type InitialState = { kind: 'uniform'; temperature: number } | { kind: 'steady' } | { kind: 'periodic' };
 
 /** mesh rule: per layer max(minCellsPerLayer, ceil(thickness / maxCellSize)) cells unless the layer sets cells */
 export interface MeshOptions {
@@ -177,6 +185,38 @@ export interface EnergyResult {
   balanceError: number;
 }
 
+/** how the time steps were taken, so the scheme can be named truthfully */
+export interface SchemeAccount {
+  /** the model's scheme */
+  scheme: 'crank-nicolson' | 'implicit';
+  /** whole steps taken with the model's scheme at its full step (the short last step counts here too) */
+  fullSteps: number;
+  /** restarts after a jump (or a uniform start): each replaces whole steps by the sub-steps below */
+  restarts: number;
+  /** backward-euler sub-steps of a quarter step taken in restarts */
+  backwardEulerSubSteps: number;
+  /** crank–nicolson sub-steps of half a step taken in restarts */
+  crankNicolsonSubSteps: number;
+}
+
+/** what the periodic start did (initial.kind "periodic") */
+export interface PeriodicStartStats {
+  /** the common period P, s (0 when every signal is constant: the start is then the steady state) */
+  period: number;
+  /** samples per period N of the frequency-domain solve */
+  samples: number;
+  /** P/N, s */
+  stepSize: number;
+  /** complex tridiagonal solves (harmonics with a non-negligible drive) */
+  solves: number;
+  /** one period stepped for the restart correction (jumps inside the period), 0 or 1 */
+  correctionPeriods: number;
+  /** wall time of the periodic start, ms */
+  elapsedMs: number;
+  /** that time in periods' worth of this run's own stepping (wall time of stepping one period) */
+  costPeriods: number;
+}
+
 /** run statistics */
 export interface StatsResult {
   cells: number;
@@ -184,6 +224,10 @@ export interface StatsResult {
   /** cells × steps */
   nodeSteps: number;
   elapsedMs: number;
+  /** the steps by kind */
+  scheme: SchemeAccount;
+  /** present for a periodic start */
+  periodicStart?: PeriodicStartStats;
 }
 
 /** what simulate() returns (the contract's Result) */
@@ -221,6 +265,6 @@ export interface SimulateOptions {
   progressEvery?: number;
   /** store full profiles (default true); false leaves profiles empty */
   storeProfiles?: boolean;
-  /** backward-Euler half-steps at the start and after each jump (Rannacher start-up), default 4; 0 disables */
-  startupHalfSteps?: number;
+  /** restart with backward-euler sub-steps after a uniform start and after each jump (default true); false only to show the ringing */
+  restart?: boolean;
 }

@@ -43,6 +43,30 @@ describe('simulate command line', () => {
     for (const line of lines) expect(line).toMatch(/^[\w.[\]]+: \S/);
   }, 60_000);
 
+  it('exits 2 with an initial.kind line for a periodic start whose signals do not repeat', () => {
+    const m = JSON.parse(readFileSync(`${root}/${fixture}`, 'utf8'));
+    m.initial = { kind: 'periodic' };
+    m.inside.air = { kind: 'series', step: 3600, values: [18, 21, 19] };
+    const r = run(['-'], JSON.stringify(m));
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trim().split('\n')).toEqual(['initial.kind: "periodic" needs every signal to repeat, but inside.air is a series without "repeat": true']);
+  }, 60_000);
+
+  it('runs a periodic start with sun and long-wave loss and prints a result that repeats from t = 0', () => {
+    const m = JSON.parse(readFileSync(`${root}/${fixture}`, 'utf8'));
+    m.initial = { kind: 'periodic' };
+    m.outside.solar = { absorptance: 0.6, irradiance: { kind: 'series', step: 3600, values: Array.from({ length: 24 }, (_, h) => Math.max(0, 600 * Math.sin((Math.PI * (h - 6)) / 12))), repeat: true } };
+    m.outside.longWave = { netLoss: { kind: 'constant', value: 40 } };
+    m.duration = 2 * 86400;
+    m.outputInterval = 3600;
+    const r = run(['-'], JSON.stringify(m));
+    expect(r.code).toBe(0);
+    const q: number[] = JSON.parse(r.stdout).series.insideFlux;
+    // contract, "Periodic start": every series repeats with period P from t = 0
+    for (let k = 0; k + 24 < q.length; k++) expect(Math.abs(q[k + 24] - q[k])).toBeLessThan(1e-3);
+  }, 60_000);
+
   it('treats malformed JSON as an invalid model', () => {
     const r = run(['-'], '{"layers": [');
     expect(r.code).toBe(2);

@@ -44,8 +44,24 @@ describe('modelSchema', () => {
     ['an absorptance above 1', (m) => (m.outside.solar = { absorptance: 1.5, irradiance: { kind: 'constant', value: 0 } }), 'outside.solar.absorptance: must be between 0 and 1'],
     ['no layers', (m) => (m.layers = []), 'layers: must hold at least one layer'],
     ['a missing inside air', (m) => delete m.inside.air, 'inside.air: is required'],
-    ['an unknown initial kind', (m) => (m.initial = { kind: 'warm' }), 'initial.kind: must be "uniform" or "steady" (got "warm")'],
+    ['an unknown initial kind', (m) => (m.initial = { kind: 'warm' }), 'initial.kind: must be "uniform", "steady" or "periodic" (got "warm")'],
     ['an unknown scheme', (m) => (m.scheme = 'explicit'), 'scheme: must be "crank-nicolson" or "implicit" (got "explicit")'],
+    ['a long-wave loss of NaN', (m) => (m.outside.longWave = { netLoss: { kind: 'constant', value: NaN } }), 'outside.longWave.netLoss.value: must be a finite number (got NaN)'],
+    [
+      'a periodic start with a series that does not repeat',
+      (m) => Object.assign(m, { initial: { kind: 'periodic' }, inside: { ...m.inside, air: { kind: 'series', step: 3600, values: [18, 21] } } }),
+      'initial.kind: "periodic" needs every signal to repeat, but inside.air is a series without "repeat": true',
+    ],
+    [
+      'a periodic start whose periods do not divide the longest',
+      (m) =>
+        Object.assign(m, {
+          initial: { kind: 'periodic' },
+          outside: { ...m.outside, air: { kind: 'sine', mean: 5, amplitude: 8, period: 86400, peakTime: 0 } },
+          inside: { ...m.inside, air: { kind: 'series', step: 3600, values: Array(25).fill(20), repeat: true } },
+        }),
+      'initial.kind: "periodic" needs every period to divide the longest (90000 s), but outside.air repeats every 86400 s',
+    ],
     ['fractional layer cells', (m) => (m.layers[0].cells = 2.5), 'layers[0].cells: must be a whole number of cells'],
   ];
   for (const [label, mutate, line] of cases) {
@@ -53,6 +69,21 @@ describe('modelSchema', () => {
       expect(issuesOf(mutate)).toContain(line);
     });
   }
+
+  it('accepts a periodic start when every period divides the longest (a week of hourly values and a daily sine)', () => {
+    const lines = issuesOf((m) =>
+      Object.assign(m, {
+        initial: { kind: 'periodic' },
+        outside: {
+          ...m.outside,
+          air: { kind: 'sine', mean: 5, amplitude: 8, period: 86400, peakTime: 0 },
+          longWave: { netLoss: { kind: 'series', step: 600, values: Array(144).fill(40), repeat: true } },
+        },
+        inside: { ...m.inside, air: { kind: 'series', step: 3600, values: Array(168).fill(20), repeat: true } },
+      }),
+    );
+    expect(lines).toEqual([]);
+  });
 
   it('rejects a mesh over 20,000 cells and says how many the rule would make', () => {
     const lines = issuesOf((m) => (m.mesh = { maxCellSize: 0.00001, minCellsPerLayer: 4 }));

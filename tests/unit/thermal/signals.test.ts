@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compileSignal, jumpTimes, signalAt, signalRate } from '../../../src/lib/thermal/signals.ts';
+import { commonPeriod, compileSignal, signalAt, signalRate } from '../../../src/lib/thermal/signals.ts';
 
 describe('signalAt', () => {
   it('returns the value of a constant signal at any time', () => {
@@ -49,18 +49,40 @@ describe('signalRate', () => {
   });
 });
 
-describe('jumpTimes', () => {
-  it('finds no jumps in smooth signals', () => {
-    expect(jumpTimes({ kind: 'sine', mean: 0, amplitude: 30, period: 600, peakTime: 0 }, 1e5, 300)).toEqual([]);
-    expect(jumpTimes({ kind: 'series', step: 3600, values: [0, 50, 0] }, 1e5, 300)).toEqual([]);
+describe('repeat semantics (engine contract, Model: Signal)', () => {
+  it('gives a 24-value hourly day a period of exactly 86400 s: values[0] holds again at t = 86400', () => {
+    const values = Array.from({ length: 24 }, (_, h) => (h >= 8 && h < 18 ? 21 : 17));
+    const s = compileSignal({ kind: 'series', step: 3600, values, repeat: true });
+    for (let t = 0; t < 3 * 86400; t += 1234) expect(signalAt(s, t + 86400)).toBeCloseTo(signalAt(s, t), 12);
+    expect(signalAt(s, 86400)).toBe(values[0]);
+    expect(signalAt(s, 86400 + 8 * 3600)).toBe(21);
+    // after the last sample it runs linearly back to values[0]
+    expect(signalAt(s, 23.5 * 3600)).toBeCloseTo(17, 12);
   });
+});
 
-  it('marks an unresolved change of a fine series as a jump at the start of its ramp', () => {
-    expect(jumpTimes({ kind: 'series', step: 300, values: [0, 0, 10, 10] }, 1e5, 300)).toEqual([300]);
+describe('commonPeriod', () => {
+  const base = { surfaceResistance: 0.04 };
+  it('takes the longest period when the others divide it', () => {
+    const r = commonPeriod({
+      outside: { ...base, air: { kind: 'sine', mean: 0, amplitude: 1, period: 86400, peakTime: 0 } },
+      inside: { surfaceResistance: 0.13, air: { kind: 'series', step: 3600, values: Array(168).fill(20), repeat: true } },
+    });
+    expect(r).toEqual({ ok: true, period: 7 * 86400 });
   });
-
-  it('also marks the wrap-around of a repeating series', () => {
-    const j = jumpTimes({ kind: 'series', step: 300, values: [0, 10], repeat: true }, 1200, 300);
-    expect(j).toEqual([0, 300, 600]);
+  it('has no period when every signal is constant', () => {
+    const r = commonPeriod({ outside: { ...base, air: { kind: 'constant', value: 0 } }, inside: { surfaceResistance: 0.13, air: { kind: 'constant', value: 20 } } });
+    expect(r).toEqual({ ok: true, period: null });
+  });
+  it('refuses a series without repeat and periods that do not divide', () => {
+    expect(
+      commonPeriod({ outside: { ...base, air: { kind: 'series', step: 60, values: [1, 2] } }, inside: { surfaceResistance: 0.13, air: { kind: 'constant', value: 20 } } }).ok,
+    ).toBe(false);
+    expect(
+      commonPeriod({
+        outside: { ...base, air: { kind: 'sine', mean: 0, amplitude: 1, period: 86400, peakTime: 0 } },
+        inside: { surfaceResistance: 0.13, air: { kind: 'sine', mean: 0, amplitude: 1, period: 86400 * 0.7, peakTime: 0 } },
+      }).ok,
+    ).toBe(false);
   });
 });

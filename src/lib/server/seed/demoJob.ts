@@ -28,7 +28,7 @@ function layer(id: string, key: string, thicknessMm: number, note = ''): DocLaye
 
 /** every demo build-up carries the Harrow Lane monthly climate of our own scenario, for the moisture check */
 const doc = (layers: DocLayer[]): WorkbenchDocument =>
-  workbenchDocumentSchema.parse({ version: 1, layers, exposure: { ...defaultExposure(), climate: demoClimate('harrow-lane') } });
+  workbenchDocumentSchema.parse({ version: 2, layers, exposure: { ...defaultExposure(), climate: demoClimate('harrow-lane') } });
 
 /** three contrasting build-ups for the fictional 1970s library: heavy, light, and a thin metal panel */
 export const DEMO_ASSEMBLIES: { name: string; element: 'wall' | 'roof'; description: string; note: string; doc: WorkbenchDocument }[] = [
