@@ -26,6 +26,8 @@ export {
   moistureFromDocument,
   planeIndex,
   MoistureInputError,
+  INTERSTITIAL_RSI_BY_DIRECTION,
+  type HeatFlowDirection,
   type MoistureAssessment,
   type MoistureVerdictKind,
   type MoistureOutput,
