@@ -10,6 +10,7 @@ import { workbenchDocumentSchema, type UploadedSeries } from '../lib/schemas/wor
 import { guessMapping, parseCsv, validateCsv } from '../lib/workbench/csv.ts';
 import { simulateDocument } from '../lib/workbench/runDocument.ts';
 import { documentOutput } from '../lib/workbench/documentOutput.ts';
+import { moistureFromDocument, moistureIssues } from '../lib/moisture/index.ts';
 
 class InvalidModel extends Error {
   constructor(readonly lines: string[]) {
@@ -74,11 +75,15 @@ function runDocumentMode(docArg: string, uploadArg: string | null): string {
   if (out.mode !== 'series' && uploadArg !== null) {
     throw new InvalidModel([`exposure.outdoor.mode: is "${out.mode}", which takes no uploaded series; leave out --upload`]);
   }
+  // a document with a climate needs every layer's μ for the moisture check
+  const moistureProblems = moistureIssues(parsed.data);
+  if (moistureProblems.length > 0) throw new InvalidModel(moistureProblems);
   const upload = uploadArg !== null ? readUpload(uploadArg) : null;
   const run = simulateDocument(parsed.data, upload);
   if (run.kind === 'invalid') throw new InvalidModel(run.issues);
   if (run.kind === 'cancelled') throw new Error('the run was cancelled');
-  return toJson(documentOutput(run));
+  const moisture = moistureFromDocument(parsed.data);
+  return toJson(documentOutput(run, moisture ? { moisture } : {}));
 }
 
 function formatDocPath(path: ReadonlyArray<PropertyKey>): string {
