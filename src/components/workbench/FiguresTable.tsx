@@ -1,4 +1,5 @@
 // the figures table of a run: simulated beside analytic, each with how it was computed
+import { memo } from 'react';
 import type { RunDone } from '../../lib/workbench/runDocument';
 import type { Exposure } from '../../lib/schemas/workbench';
 import { PERIODIC_TOLERANCE } from '../../lib/workbench/figures';
@@ -7,7 +8,7 @@ import { fixed } from '../../lib/workbench/figureDefs';
 
 export { fixed };
 
-export default function FiguresTable({ run, exposure }: { run: RunDone; exposure: Exposure }) {
+function FiguresTable({ run, exposure }: { run: RunDone; exposure: Exposure }) {
   const f = run.figures;
   const rows = figureRows(run, exposure);
   // the periodic-state check means something only for a repeating outdoor day
@@ -72,3 +73,6 @@ export default function FiguresTable({ run, exposure }: { run: RunDone; exposure
     </div>
   );
 }
+
+// a run's table is the same for as long as the run is: progress frames of the next run do not redraw it
+export default memo(FiguresTable);
