@@ -8,7 +8,6 @@ import { ARTIFACTS, baseUrl } from '../support/browser';
 import { closeTestDb } from '../support/db';
 import { DEMO, call, demoTeamId, makeUser, uid } from './teamFixtures';
 import { issuedRecord, type IssuedRecord } from './recordFixtures';
-import { FIGURE_DEFS } from '../../src/lib/workbench/figureDefs';
 import { figureRows } from '../../src/lib/workbench/figureRows';
 import { defaultExposure, type WorkbenchDocument } from '../../src/lib/schemas/workbench';
 
@@ -131,10 +130,3 @@ describe('the Report', () => {
 function twoLayerExposure() {
   return { ...defaultExposure(), indoorRelativeHumidity: 60 };
 }
-
-// every key the figure definitions name is written in words (a guard for the table itself)
-describe('the figure definitions behind the Report', () => {
-  it('name a unit for every numeric figure', () => {
-    for (const d of FIGURE_DEFS) if (typeof d.format === 'number' && d.key !== 'cells') expect(d.unit, d.key).not.toBe('');
-  });
-});

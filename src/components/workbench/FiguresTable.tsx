@@ -1,4 +1,5 @@
 // the figures table of a run: simulated beside analytic, each with how it was computed
+import { memo } from 'react';
 import type { RunDone } from '../../lib/workbench/runDocument';
 import type { Exposure } from '../../lib/schemas/workbench';
 import { ACCURACY_TOLERANCE } from '../../lib/workbench/figures';
@@ -9,7 +10,7 @@ import { MOISTURE_DEFERRAL } from '../../lib/moisture/index.ts';
 
 export { fixed };
 
-export default function FiguresTable({ run, exposure }: { run: RunDone; exposure: Exposure }) {
+function FiguresTable({ run, exposure }: { run: RunDone; exposure: Exposure }) {
   const f = run.figures;
   const rows = figureRows(run, exposure);
   return (
@@ -85,3 +86,6 @@ export default function FiguresTable({ run, exposure }: { run: RunDone; exposure
     </div>
   );
 }
+
+// a run's table is the same for as long as the run is: progress frames of the next run do not redraw it
+export default memo(FiguresTable);

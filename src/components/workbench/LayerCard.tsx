@@ -195,7 +195,7 @@ const CardBody = memo(function CardBody({ layer, index, count, readOnly, resista
         <div className="mt-1.5 flex items-end gap-2 pl-7">
           <details className="min-w-0 flex-1 text-xs text-ink-soft">
             <summary className="cursor-pointer select-none truncate">
-              {edited ? <span className="mr-1 rounded bg-warn-soft px-1 font-semibold text-warn">values edited</span> : null}
+              {edited ? <><span className="mr-1 rounded bg-warn-soft px-1 font-semibold text-warn">values edited</span>{' '}</> : null}
               Source: {layer.source || 'none given'}
             </summary>
             <p className="mt-1 whitespace-pre-line">{layer.source || 'No source given for these values.'}</p>

@@ -1,6 +1,6 @@
 // playback of one run: the profile through the thickness on a canvas, the traces (uPlot)
 // and the controls; PNG export of each chart.
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import './traces.css';
@@ -22,7 +22,7 @@ function contentWidth(el: HTMLElement): number {
 }
 
 /** playback of one run: the profile canvas, the traces, the controls */
-export default function Playback({ run, classes }: { run: RunDone; classes: MaterialClass[] }) {
+function Playback({ run, classes }: { run: RunDone; classes: MaterialClass[] }) {
   const profileBox = useRef<HTMLDivElement>(null);
   const canvas = useRef<HTMLCanvasElement>(null);
   const tempBox = useRef<HTMLDivElement>(null);
@@ -252,3 +252,6 @@ export default function Playback({ run, classes }: { run: RunDone; classes: Mate
     </div>
   );
 }
+
+// redrawn only for another run (or other layer classes), never for the pane's own progress frames
+export default memo(Playback);

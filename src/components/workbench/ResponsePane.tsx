@@ -1,7 +1,7 @@
 // the Response pane: the run in the worker (progress, cancel, auto re-run of short runs), the
 // run kept with the revision loaded back, playback and the figures table. its parts:
 // RunControl (the top line), KeptRuns (keep, load, list, compare), Playback (profile and traces).
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useWorkbench } from '../../lib/workbench/store';
 import { Runner, type RunDone } from '../../lib/workbench/runner';
 import { seriesCsv } from '../../lib/workbench/exportCsv';
@@ -10,8 +10,10 @@ import { effectiveWarmupDays, type UploadedSeries, type WorkbenchDocument } from
 import FiguresTable from './FiguresTable';
 import Playback from './Playback';
 import { download } from './chartExport';
-import RunControl, { AUTO_RUN_DAYS, StaleBanner } from './RunControl';
+import RunControl, { AUTO_RUN_DAYS, RunState, StaleBanner, type ResponseMode, type Saved } from './RunControl';
 import { Comparison, keepRun, KeptRunsList, loadKeptRun, useKeptRuns, whenText, type RunOrigin } from './KeptRuns';
+
+export type { ResponseMode };
 
 export { AUTO_RUN_DAYS };
 
@@ -27,15 +29,6 @@ interface Shown {
   wallMs: number | null;
 }
 
-type Saved = { state: 'none' } | { state: 'saving' } | { state: 'saved'; id: number; revision: number; withSeries: boolean } | { state: 'error'; message: string };
-
-/**
- * who looks at the pane: 'edit' (engineer or admin: runs can be kept with the saved revision),
- * 'checker' (runs in the browser only; keeping needs the edit role), 'guest' (the Shared view:
- * an issued revision run in the guest's browser, nothing is kept). with no mode, a pane without
- * an assembly in the store is the guest's.
- */
-export type ResponseMode = 'edit' | 'checker' | 'guest';
 
 export default function ResponsePane({ mode: given }: { mode?: ResponseMode } = {}) {
   const doc = useWorkbench((s) => s.doc);
@@ -173,6 +166,9 @@ export default function ResponsePane({ mode: given }: { mode?: ResponseMode } = 
     setKept(k);
   };
 
+  // one array per shown run: playback redraws its charts when this changes
+  const ranLayers = shown?.doc.layers;
+  const classes = useMemo(() => (ranLayers ?? []).map((l) => l.materialClass), [ranLayers]);
   const reasons = shown ? staleReasons(shown.doc, doc) : [];
   const stale = reasons.length > 0;
   const ofRevision = !!base && !!shown && staleReasons(shown.doc, savedDoc).length === 0;
@@ -209,50 +205,21 @@ export default function ResponsePane({ mode: given }: { mode?: ResponseMode } = 
       {shown ? (
         <>
           {stale && !running ? <StaleBanner reasons={reasons} willRerun={totalDays <= AUTO_RUN_DAYS} /> : null}
-          <div className="flex flex-wrap items-center gap-2 text-xs" data-testid="run-state">
-            {shown.origin.kind === 'kept' ? (
-              <span className="rounded bg-accent-soft px-2 py-0.5 font-semibold text-accent-strong" data-testid="run-origin">
-                Kept run of revision {base?.number}, {whenText(shown.origin.at)}
-                {shown.origin.byName ? ` by ${shown.origin.byName}` : ''}
-              </span>
-            ) : mode === 'guest' ? (
-              <span className="rounded bg-paper px-2 py-0.5 font-semibold text-ink-soft" data-testid="run-origin" title="Nothing of this run is sent or stored">
-                Computed in your browser from the issued revision
-              </span>
-            ) : mode === 'checker' ? (
-              <span className="rounded bg-paper px-2 py-0.5 font-semibold text-ink-soft" data-testid="run-origin" title="Runs are kept with a revision by engineers and admins">
-                Computed in your browser from {base ? `revision ${base.number}` : 'the build-up'}; not kept
-              </span>
-            ) : (
-              <span className="rounded bg-warn-soft text-warn px-2 py-0.5 font-semibold" title="This run lives in this browser tab only">
-                Unsaved run
-              </span>
-            )}
-            <span className="text-ink-soft tabular">
-              {shown.run.steps.toLocaleString('en-GB')} steps in {shown.run.elapsedMs.toFixed(1)} ms (engine)
-              {shown.wallMs !== null ? `, figures ${shown.wallMs.toFixed(0)} ms after the request` : ''}
-            </span>
-            {canKeep && base && fromBrowser && ofRevision && saved.state !== 'saved' ? (
-              <button type="button" className="px-2 py-0.5 rounded border border-line bg-panel hover:bg-paper" onClick={() => void saveRun()} disabled={saved.state === 'saving'}>
-                {saved.state === 'saving' ? 'Keeping…' : `Keep this run with revision ${base.number}`}
-              </button>
-            ) : null}
-            {canKeep && base && fromBrowser && !ofRevision ? <span className="text-ink-faint">Save the revision to keep runs with it.</span> : null}
-            {saved.state === 'saved' ? (
-              <span className="text-ok" data-testid="run-saved">
-                Kept with revision {saved.revision} (run {saved.id}){saved.withSeries ? '' : ', figures only: the series is over the size limit'}.
-              </span>
-            ) : null}
-            {saved.state === 'error' ? (
-              <span className="text-danger" role="alert">
-                {saved.message}
-              </span>
-            ) : null}
-          </div>
+          <RunState
+            origin={shown.origin}
+            mode={mode}
+            revision={base?.number ?? null}
+            run={shown.run}
+            wallMs={shown.wallMs}
+            canKeep={canKeep && !!base && fromBrowser && ofRevision && saved.state !== 'saved'}
+            mustSave={canKeep && !!base && fromBrowser && !ofRevision}
+            saved={saved}
+            onKeep={() => void saveRun()}
+          />
           {keptRuns.rows && keptRuns.rows.length > 0 ? <KeptRunsList rows={keptRuns.rows} revision={base?.number} /> : null}
           {kept && fromBrowser && kept.origin.kind === 'kept' ? <Comparison kept={kept.run} fresh={shown.run} keptLabel={whenText(kept.origin.at)} /> : null}
           <div className={stale ? 'opacity-50 transition-opacity' : undefined} data-stale={stale ? 'true' : 'false'} data-testid="run-results">
-            <Playback run={shown.run} classes={shown.doc.layers.map((l) => l.materialClass)} />
+            <Playback run={shown.run} classes={classes} />
             <FiguresTable run={shown.run} exposure={shown.doc.exposure} />
           </div>
           <div className="flex flex-wrap gap-2">

@@ -1,5 +1,8 @@
-// the Response pane's top line: Run (or Run again), progress with Cancel, the Report link,
-// and the banner that says a shown run is not of the current settings.
+// the Response pane's top line: Run (or Run again), progress with Cancel, the Report link;
+// the line saying where the shown run comes from (with Keep), and the banner that says a
+// shown run is not of the current settings.
+import type { RunDone } from '../../lib/workbench/runner';
+import { whenText, type RunOrigin } from './KeptRuns';
 
 /** runs of up to this many days (warm-up included) re-run by themselves after an edit */
 export const AUTO_RUN_DAYS = 7;
@@ -54,5 +57,76 @@ export function StaleBanner({ reasons, willRerun }: { reasons: string[]; willRer
       <strong>These results are from other settings.</strong> Changed since the run: {reasons.join('; ')}.{' '}
       {willRerun ? 'A new run follows by itself.' : 'To bring them up to date, press Run.'}
     </p>
+  );
+}
+
+/**
+ * who looks at the pane: 'edit' (engineer or admin: runs can be kept with the saved revision),
+ * 'checker' (runs in the browser only; keeping needs the edit role), 'guest' (the Shared view:
+ * an issued revision run in the guest's browser, nothing is kept). with no mode, a pane without
+ * an assembly in the store is the guest's.
+ */
+export type ResponseMode = 'edit' | 'checker' | 'guest';
+
+export type Saved = { state: 'none' } | { state: 'saving' } | { state: 'saved'; id: number; revision: number; withSeries: boolean } | { state: 'error'; message: string };
+
+interface RunStateProps {
+  origin: RunOrigin;
+  mode: ResponseMode;
+  revision: number | null;
+  run: RunDone;
+  /** ms from the request to the figures, for runs of this browser */
+  wallMs: number | null;
+  /** the run may be kept with the revision now */
+  canKeep: boolean;
+  /** the run is of unsaved settings: saving comes first */
+  mustSave: boolean;
+  saved: Saved;
+  onKeep(): void;
+}
+
+/** where the shown run comes from, how long it took, and keeping it */
+export function RunState({ origin, mode, revision, run, wallMs, canKeep, mustSave, saved, onKeep }: RunStateProps) {
+  return (
+    <div className="flex flex-wrap items-center gap-2 text-xs" data-testid="run-state">
+      {origin.kind === 'kept' ? (
+        <span className="rounded bg-accent-soft px-2 py-0.5 font-semibold text-accent-strong" data-testid="run-origin">
+          Kept run of revision {revision}, {whenText(origin.at)}
+          {origin.byName ? ` by ${origin.byName}` : ''}
+        </span>
+      ) : mode === 'guest' ? (
+        <span className="rounded bg-paper px-2 py-0.5 font-semibold text-ink-soft" data-testid="run-origin" title="Nothing of this run is sent or stored">
+          Computed in your browser from the issued revision
+        </span>
+      ) : mode === 'checker' ? (
+        <span className="rounded bg-paper px-2 py-0.5 font-semibold text-ink-soft" data-testid="run-origin" title="Runs are kept with a revision by engineers and admins">
+          Computed in your browser from {revision !== null ? `revision ${revision}` : 'the build-up'}; not kept
+        </span>
+      ) : (
+        <span className="rounded bg-warn-soft text-warn px-2 py-0.5 font-semibold" title="This run lives in this browser tab only">
+          Unsaved run
+        </span>
+      )}
+      <span className="text-ink-soft tabular">
+        {run.steps.toLocaleString('en-GB')} steps in {run.elapsedMs.toFixed(1)} ms (engine)
+        {wallMs !== null ? `, figures ${wallMs.toFixed(0)} ms after the request` : ''}
+      </span>
+      {canKeep ? (
+        <button type="button" className="px-2 py-0.5 rounded border border-line bg-panel hover:bg-paper" onClick={onKeep} disabled={saved.state === 'saving'}>
+          {saved.state === 'saving' ? 'Keeping…' : `Keep this run with revision ${revision}`}
+        </button>
+      ) : null}
+      {mustSave ? <span className="text-ink-faint">Save the revision to keep runs with it.</span> : null}
+      {saved.state === 'saved' ? (
+        <span className="text-ok" data-testid="run-saved">
+          Kept with revision {saved.revision} (run {saved.id}){saved.withSeries ? '' : ', figures only: the series is over the size limit'}.
+        </span>
+      ) : null}
+      {saved.state === 'error' ? (
+        <span className="text-danger" role="alert">
+          {saved.message}
+        </span>
+      ) : null}
+    </div>
   );
 }

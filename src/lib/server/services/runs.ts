@@ -89,20 +89,31 @@ export async function revisionOfRun(runId: number): Promise<number | null> {
   return rows[0]?.revisionId ?? null;
 }
 
+/** runs unpacked lately, by id (a kept run never changes); a few, since each holds its whole series */
+const unpacked = new Map<number, RunDone>();
+const UNPACKED_KEPT = 8;
+
 /** the newest run of a revision kept with its series, unpacked; null when there is none (or it does not unpack) */
 export async function latestKeptRun(revisionId: number): Promise<{ row: KeptRunRow; run: RunDone } | null> {
   const rows = await db
-    .select({ id: runs.id, ...runFields, packed: runs.packed })
+    .select({ id: runs.id, ...runFields })
     .from(runs)
     .leftJoin(users, eq(users.id, runs.createdBy))
     .where(and(eq(runs.revisionId, revisionId), isNotNull(runs.packed)))
     .orderBy(desc(runs.createdAt), desc(runs.id))
     .limit(1);
   const r = rows[0];
-  if (!r || !r.packed) return null;
-  const { packed, ...rest } = r;
+  if (!r) return null;
+  const row = rowOf(r);
+  const hit = unpacked.get(r.id);
+  if (hit) return { row, run: hit };
+  const packed = await packedOf(r.id);
+  if (!packed) return null;
   try {
-    return { row: rowOf(rest), run: unpackRun(new Uint8Array(packed.buffer, packed.byteOffset, packed.byteLength)) };
+    const run = unpackRun(new Uint8Array(packed.buffer, packed.byteOffset, packed.byteLength));
+    if (unpacked.size >= UNPACKED_KEPT) unpacked.delete(unpacked.keys().next().value!);
+    unpacked.set(r.id, run);
+    return { row, run };
   } catch {
     return null;
   }
