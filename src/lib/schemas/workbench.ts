@@ -3,6 +3,7 @@
 // units the engine uses (m, W/(m·K), kg/m³, J/(kg·K), s, °C); the UI shows mm and hours.
 // toModel() turns a document into the engine's model.
 import { z } from 'zod';
+import './jitless';
 import type { ModelInput, SignalData } from './model';
 import { HOTTEL_CLIMATE_NAMES, type HottelClimate } from '../solar/clearSky.ts';
 import { TRANSPOSITION_MODELS } from '../solar/transposition.ts';
