@@ -9,9 +9,12 @@ export interface AppProcess {
   stop(): Promise<void>;
 }
 
-/** run the built standalone server and wait until /api/health says the database answers */
+/**
+ * Run the built app behind our own small server (serve.mjs: trusted client address, body
+ * limits, security headers on every response) and wait until /api/health says the database answers.
+ */
 export async function startApp(root: string, env: Record<string, string>, host: string, port: number): Promise<AppProcess> {
-  const child = spawn(process.execPath, [path.join(outDir(root), 'server/entry.mjs')], {
+  const child = spawn(process.execPath, [path.join(root, 'src/stack/serve.mjs'), path.join(outDir(root), 'server/entry.mjs')], {
     cwd: root,
     stdio: ['ignore', 'inherit', 'inherit'],
     env: { ...process.env, ...env, HOST: host, PORT: String(port), ASTRO_TELEMETRY_DISABLED: '1' },

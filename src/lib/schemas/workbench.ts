@@ -17,10 +17,10 @@ const pos = (unit: string) => num(unit).refine((v) => v > 0, { error: `must be g
 /** one layer card; ordered from the OUTSIDE face (index 0) to the INSIDE face */
 export const docLayerSchema = z.object({
   /** stable client id of the card (survives reordering; used by drag and drop) */
-  id: z.string().min(1),
+  id: z.string().min(1).max(100, { error: 'must be at most 100 characters' }),
   name: z.string().trim().min(1, { error: 'must not be empty' }).max(160, { error: 'must be at most 160 characters' }),
   /** the library material it came from: "builtin:<key>" or "team:<id>"; null once edited away from it */
-  materialRef: z.string().nullable().default(null),
+  materialRef: z.string().max(100, { error: 'must be at most 100 characters' }).nullable().default(null),
   materialClass: z.enum(MATERIAL_CLASSES, { error: 'must be one of the material classes' }),
   /** m (shown in mm) */
   thickness: pos('m'),

@@ -32,10 +32,17 @@ export interface AuditEntry {
   success?: boolean;
 }
 
-/** one row in the audit log; a failure to write it never breaks the request it describes */
-export async function audit(entry: AuditEntry): Promise<void> {
+/** what can write the row: the app's pool, or the transaction a caller holds open */
+type Writer = Pick<typeof db, 'insert'>;
+
+/**
+ * One row in the audit log; a failure to write it never breaks the request it describes.
+ * Inside a transaction, pass it as `writer`: the row then goes over the connection the
+ * transaction already holds (and commits or rolls back with it), never a second one from the pool.
+ */
+export async function audit(entry: AuditEntry, writer: Writer = db): Promise<void> {
   try {
-    await db.insert(auditLog).values({
+    await writer.insert(auditLog).values({
       action: entry.action,
       teamId: entry.teamId ?? null,
       actorId: entry.actorId ?? null,
@@ -45,6 +52,7 @@ export async function audit(entry: AuditEntry): Promise<void> {
       success: entry.success ?? true,
     });
   } catch (err) {
-    console.error('audit log write failed', entry.action, err);
+    // a short line: the failed statement's parameters stay out of the log
+    console.error(`audit log write failed (${entry.action}): ${(err as { code?: string }).code ?? (err instanceof Error ? err.message.split('\n')[0].slice(0, 120) : 'error')}`);
   }
 }

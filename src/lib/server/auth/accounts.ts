@@ -7,10 +7,20 @@ import { db } from '../db';
 import { emailTokens, users, type User } from '../db/schema';
 import { hashPassword, verifyPassword } from './password';
 import { lucia } from './lucia';
-import { clearFailures, lockedFor, recordFailure } from './rateLimit';
+import { LIMITS, clearSignInFailures, limitKey, recordSignInFailure, signInWait, spendAll, tryAgainIn } from './rateLimit';
 import { hashToken, tokenPair, DAY_MS, HOUR_MS } from '../tokens';
-import { sendMail } from '../mail';
+import { deliverNow, queueMail } from '../mail';
 import { audit } from '../audit';
+
+/**
+ * Answers that must not tell whether an address has an account take at least this long
+ * either way (the work behind them differs by a few database writes).
+ */
+const EVEN_ANSWER_MS = 250;
+async function evenOut(startedAt: number): Promise<void> {
+  const left = EVEN_ANSWER_MS - (Date.now() - startedAt);
+  if (left > 0) await new Promise((r) => setTimeout(r, left));
+}
 
 export const VERIFY_LIFETIME_MS = 48 * HOUR_MS;
 export const RESET_LIFETIME_MS = 1 * HOUR_MS;
@@ -71,15 +81,30 @@ async function consumeToken(token: string, purpose: 'verify' | 'reset'): Promise
   return { userId: row.userId };
 }
 
-export async function sendVerification(user: Pick<User, 'id' | 'email' | 'name'>): Promise<void> {
-  const token = await issueToken(user.id, 'verify', VERIFY_LIFETIME_MS);
+function verificationMail(user: Pick<User, 'email' | 'name'>, token: string) {
   const url = `${PUBLIC_BASE_URL}/verify/${token}`;
-  await sendMail({
+  return {
     to: user.email,
     subject: 'Confirm your e-mail address for Wallpulse',
     purpose: 'verify',
     text: `Hello ${user.name},\n\nconfirm that this address is yours by opening the link below. It works once and expires in 48 hours.\n\n${url}\n\nIf you did not sign up for Wallpulse, ignore this message.\n`,
-  });
+  };
+}
+
+/** queue a new confirmation link for the user (the worker sends it, unless forDeliverNow) */
+export async function queueVerification(user: Pick<User, 'id' | 'email' | 'name'>, forDeliverNow = false): Promise<number> {
+  const token = await issueToken(user.id, 'verify', VERIFY_LIFETIME_MS);
+  return queueMail(verificationMail(user, token), { forDeliverNow });
+}
+
+/**
+ * A signed-in person asks for the link again: limited per account, and sent at once so the
+ * answer can say whether it went out. 'limited' carries the message to show.
+ */
+export async function resendVerification(user: Pick<User, 'id' | 'email' | 'name'>): Promise<{ sent: boolean; limited?: string }> {
+  const wait = await spendAll([[LIMITS.resendAccount, user.id]]);
+  if (wait > 0) return { sent: false, limited: `Several links were sent already in the last hour. ${tryAgainIn(wait)}` };
+  return { sent: await deliverNow(await queueVerification(user, true)) };
 }
 
 export async function verifyEmail(token: string): Promise<Outcome<{ userId: string }>> {
@@ -89,43 +114,91 @@ export async function verifyEmail(token: string): Promise<Outcome<{ userId: stri
   return { ok: true, value: taken };
 }
 
-/** check the password; counts failures per e-mail + IP and writes the audit rows */
+/** check the password; counts failures (rateLimit.ts) and writes the audit rows */
 export async function signIn(email: string, password: string, ip: string): Promise<Outcome<User>> {
-  const wait = lockedFor(email, ip);
+  const wait = await signInWait(email, ip);
   if (wait > 0) {
     await audit({ action: 'sign_in_failed', target: email, ip, success: false, detail: { reason: 'rate_limited' } });
-    const minutes = Math.ceil(wait / 60);
-    return fail(429, 'rate_limited', `Too many failed sign-ins for this address. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, or reset your password.`);
+    return fail(429, 'rate_limited', `Too many failed sign-ins for this address or from this network. ${tryAgainIn(wait)} Or reset your password.`);
   }
   const user = await userByEmail(email);
   // verify against a hash even for an unknown address, so the answer takes as long either way
   const ok = user ? await verifyPassword(user.passwordHash, password) : (await verifyPassword(await dummyHash(), password), false);
   if (!user || !ok) {
-    recordFailure(email, ip);
+    await recordSignInFailure(email, ip);
     await audit({ action: 'sign_in_failed', actorId: user?.id ?? null, target: email, ip, success: false, detail: { reason: user ? 'wrong_password' : 'unknown_email' } });
     return fail(401, 'bad_credentials', 'That e-mail and password do not match an account.', { password: 'E-mail or password is wrong' });
   }
-  clearFailures(email, ip);
+  await clearSignInFailures(email, ip);
   await audit({ action: 'sign_in', actorId: user.id, target: email, ip });
   return { ok: true, value: user };
+}
+
+/** what sign-up answers, whether or not the address had an account */
+export const SIGN_UP_SENT = (email: string) =>
+  `We sent a link to ${email}. Open it to confirm the address and sign in; it lasts 48 hours. If the address has an account already, the message says how to sign in instead.`;
+
+/**
+ * Sign up without telling whether the address has an account: a new address gets an account
+ * (unconfirmed, not signed in) and a confirmation link that signs it in; a known address gets a
+ * message to its owner instead. Either way the answer and its timing are the same. Limited
+ * per source and per address.
+ */
+export async function signUp(input: { name: string; email: string; password: string }, ip: string): Promise<Outcome<{ email: string }>> {
+  const startedAt = Date.now();
+  const email = input.email.toLowerCase();
+  const wait = await spendAll([
+    [LIMITS.signUpSource, ip],
+    [LIMITS.signUpAddress, limitKey.address(email)],
+  ]);
+  if (wait > 0) return fail(429, 'rate_limited', `Too many sign-ups from this network or for this address. ${tryAgainIn(wait)}`);
+  const existing = await userByEmail(email);
+  if (existing) {
+    // the same work as a new account (hashing the password), then a word to the owner
+    await hashPassword(input.password);
+    await queueMail({
+      to: existing.email,
+      subject: 'Someone tried to create a Wallpulse account with your address',
+      purpose: 'signup_existing',
+      text: `Hello ${existing.name},\n\nsomeone asked to create a Wallpulse account for this address, which has one already. If it was you, sign in at ${PUBLIC_BASE_URL}/signin, or choose a new password at ${PUBLIC_BASE_URL}/reset if you have forgotten it.\n\nIf it was not you, ignore this message; nothing has changed.\n`,
+    });
+  } else {
+    const made = await createUser(input);
+    if (made.ok) await queueVerification(made.value);
+  }
+  await evenOut(startedAt);
+  return { ok: true, value: { email } };
 }
 
 // an argon2id hash of a random string, checked for unknown addresses
 let dummy: Promise<string> | null = null;
 const dummyHash = () => (dummy ??= hashPassword(tokenPair().token));
 
-/** always answers the same, whether or not the address has an account */
-export async function requestPasswordReset(email: string): Promise<void> {
+/**
+ * Always answers the same, in content and in time, whether or not the address has an account:
+ * the mail is queued, never sent inside the request. Limited per address and per source;
+ * returns the seconds to wait when a limit is reached, else 0.
+ */
+export async function requestPasswordReset(email: string, ip: string): Promise<number> {
+  const startedAt = Date.now();
+  const wait = await spendAll([
+    [LIMITS.resetSource, ip],
+    [LIMITS.resetAddress, limitKey.address(email)],
+  ]);
+  if (wait > 0) return wait;
   const user = await userByEmail(email);
-  if (!user) return;
-  const token = await issueToken(user.id, 'reset', RESET_LIFETIME_MS);
-  const url = `${PUBLIC_BASE_URL}/reset/${token}`;
-  await sendMail({
-    to: user.email,
-    subject: 'Reset your Wallpulse password',
-    purpose: 'reset',
-    text: `Hello ${user.name},\n\nsomeone asked to reset the password of your Wallpulse account. Open the link below to choose a new one. It works once and expires in 1 hour.\n\n${url}\n\nIf it was not you, ignore this message; your password stays as it is.\n`,
-  });
+  if (user) {
+    const token = await issueToken(user.id, 'reset', RESET_LIFETIME_MS);
+    const url = `${PUBLIC_BASE_URL}/reset/${token}`;
+    await queueMail({
+      to: user.email,
+      subject: 'Reset your Wallpulse password',
+      purpose: 'reset',
+      text: `Hello ${user.name},\n\nsomeone asked to reset the password of your Wallpulse account. Open the link below to choose a new one. It works once and expires in 1 hour.\n\n${url}\n\nIf it was not you, ignore this message; your password stays as it is.\n`,
+    });
+  }
+  await evenOut(startedAt);
+  return 0;
 }
 
 /** a valid, unused reset token (without using it up): for the reset page */

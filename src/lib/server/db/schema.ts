@@ -11,6 +11,7 @@ import {
   index,
   uniqueIndex,
   customType,
+  bigint,
 } from 'drizzle-orm/mysql-core';
 
 /**
@@ -305,16 +306,45 @@ export const uploads = mysqlTable(
 
 // --- mail and audit ---
 
-/** what the app sent (or tried to): one row per message handed to SMTP */
-export const outboundMail = mysqlTable('outbound_mail', {
-  id: int('id').autoincrement().primaryKey(),
-  toAddress: varchar('to_address', { length: 255 }).notNull(),
-  subject: varchar('subject', { length: 255 }).notNull(),
-  purpose: varchar('purpose', { length: 40 }).notNull(),
-  status: mysqlEnum('status', ['sent', 'failed']).notNull(),
-  messageId: varchar('message_id', { length: 255 }),
-  error: text('error'),
-  createdAt: now('created_at'),
+/**
+ * The outbound mail queue: a request writes a row (queued) and answers at once; the worker in
+ * mail.ts claims due rows (locked_until, so several app instances never send one twice),
+ * sends them, and marks them sent, or tries again later with a growing wait until it gives up (failed).
+ */
+export const outboundMail = mysqlTable(
+  'outbound_mail',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    toAddress: varchar('to_address', { length: 255 }).notNull(),
+    subject: varchar('subject', { length: 255 }).notNull(),
+    purpose: varchar('purpose', { length: 40 }).notNull(),
+    status: mysqlEnum('status', ['queued', 'sent', 'failed']).notNull(),
+    textBody: text('text_body').notNull().default(''),
+    htmlBody: text('html_body'),
+    /** sending attempts made so far */
+    attempts: int('attempts').notNull().default(0),
+    /** when the worker may try it (again) */
+    nextAttemptAt: now('next_attempt_at'),
+    /** a worker holds it until then; the claim's id says which */
+    lockedUntil: datetime('locked_until', { mode: 'date', fsp: 3 }),
+    lockId: varchar('lock_id', { length: 32 }),
+    sentAt: datetime('sent_at', { mode: 'date', fsp: 3 }),
+    messageId: varchar('message_id', { length: 255 }),
+    error: text('error'),
+    createdAt: now('created_at'),
+  },
+  (t) => [index('outbound_mail_due_idx').on(t.status, t.nextAttemptAt)],
+);
+
+/**
+ * Request limits (sign-in failures, reset and sign-up requests...) kept by rate-limiter-flexible's
+ * MySQL store, in the table layout it expects, so every app instance counts together.
+ */
+export const rateLimits = mysqlTable('rate_limits', {
+  key: varchar('key', { length: 255 }).primaryKey(),
+  points: int('points').notNull().default(0),
+  /** when the window ends, ms since 1970 */
+  expire: bigint('expire', { mode: 'number', unsigned: true }),
 });
 
 /** what the local fake SMTP server received; tests and the developer read mail here */

@@ -5,7 +5,7 @@ import { PUBLIC_BASE_URL } from 'astro:env/server';
 import { db } from '../db';
 import { invitations, memberships, teams, users, type Role } from '../db/schema';
 import { audit } from '../audit';
-import { sendMail } from '../mail';
+import { deliverNow, queueMail } from '../mail';
 import { hashToken, tokenPair, DAY_MS } from '../tokens';
 import type { ListQuery } from '../../schemas/api';
 import type { InvitationRow, InvitationStatus } from '../../schemas/rows';
@@ -27,14 +27,17 @@ export async function invite(teamId: number, actor: { id: string; name: string }
   const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_MS);
   const [row] = await db.insert(invitations).values({ teamId, email, role, tokenHash: hash, invitedBy: actor.id, expiresAt }).$returningId();
   const url = `${PUBLIC_BASE_URL}/invite/${token}`;
-  try {
-    await sendMail({
+  // queued, then sent at once: the admin learns now whether it went out
+  const mailId = await queueMail(
+    {
       to: email,
       subject: `${actor.name} invited you to ${team?.name ?? 'a team'} on Wallpulse`,
       purpose: 'invite',
       text: `Hello,\n\n${actor.name} invited you to join ${team?.name ?? 'their team'} on Wallpulse as ${role === 'admin' ? 'an admin' : `a ${role}`}.\n\nOpen the link below to accept. It expires in 7 days.\n\n${url}\n\nIf you did not expect this, ignore this message.\n`,
-    });
-  } catch {
+    },
+    { forDeliverNow: true },
+  );
+  if (!(await deliverNow(mailId))) {
     // an invitation nobody received must not stay open
     await db.update(invitations).set({ revokedAt: new Date() }).where(eq(invitations.id, row.id));
     return fail(503, 'mail_failed', `The invitation to ${email} could not be sent: the mail server did not answer. Try again in a minute.`);

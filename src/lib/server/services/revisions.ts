@@ -202,7 +202,7 @@ export async function transition(
     }
     await tx.update(revisions).set({ state: to }).where(eq(revisions.id, revisionId));
     const [ev] = await tx.insert(revisionEvents).values({ revisionId, fromState: row.state, toState: to, actorId: actor.id, note }).$returningId();
-    if (to === 'issued') await audit({ action: 'revision_issued', teamId: actor.teamId, actorId: actor.id, target: `revision:${revisionId}`, ip });
+    if (to === 'issued') await audit({ action: 'revision_issued', teamId: actor.teamId, actorId: actor.id, target: `revision:${revisionId}`, ip }, tx);
     return { ok: true as const, state: to as RevisionState, eventId: ev.id };
   });
 }

@@ -76,7 +76,7 @@ export async function changeRole(teamId: number, actorId: string, userId: string
       return fail(409, 'last_admin', 'This is the team’s only admin. Make another member admin first, then change this role.');
     }
     await tx.update(memberships).set({ role }).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
-    await audit({ action: 'role_changed', teamId, actorId, target: userId, detail: { from, to: role }, ip });
+    await audit({ action: 'role_changed', teamId, actorId, target: userId, detail: { from, to: role }, ip }, tx);
     return { ok: true as const, from };
   });
 }
@@ -97,7 +97,7 @@ export async function removeMember(teamId: number, actorId: string, userId: stri
       );
     }
     await tx.delete(memberships).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
-    await audit({ action: actorId === userId ? 'member_left' : 'member_removed', teamId, actorId, target: userId, detail: { role: from }, ip });
+    await audit({ action: actorId === userId ? 'member_left' : 'member_removed', teamId, actorId, target: userId, detail: { role: from }, ip }, tx);
     return { ok: true as const };
   });
 }

@@ -1,18 +1,15 @@
 import type { APIRoute } from 'astro';
-import { readJson } from '../../../lib/server/http';
+import { apiError, readJson } from '../../../lib/server/http';
 import { resetRequestBody } from '../../../lib/schemas/api';
 import { requestPasswordReset } from '../../../lib/server/auth/accounts';
-import { json } from '../../../lib/server/services/respond';
+import { tryAgainIn } from '../../../lib/server/auth/rateLimit';
+import { clientIp, json } from '../../../lib/server/services/respond';
 
-/** mail a reset link when the address has an account; the answer is the same either way */
-export const POST: APIRoute = async ({ request }) => {
-  const body = await readJson(request, resetRequestBody);
+/** queue a reset link when the address has an account; the answer is the same either way, in content and time */
+export const POST: APIRoute = async (ctx) => {
+  const body = await readJson(ctx.request, resetRequestBody);
   if ('response' in body) return body.response;
-  try {
-    await requestPasswordReset(body.data.email);
-  } catch (err) {
-    // a different answer when mail fails would tell who has an account; the failure is kept in outbound_mail
-    console.error(`password reset mail failed: ${err instanceof Error ? err.message : String(err)}`);
-  }
+  const wait = await requestPasswordReset(body.data.email, clientIp(ctx));
+  if (wait > 0) return apiError(429, 'rate_limited', `Several reset links were asked for already. ${tryAgainIn(wait)}`);
   return json({ sent: true, message: 'If an account uses this address, a reset link is on its way. It lasts 1 hour.' }, 202);
 };

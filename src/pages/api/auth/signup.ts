@@ -1,23 +1,17 @@
 import type { APIRoute } from 'astro';
 import { readJson } from '../../../lib/server/http';
 import { signUpBody } from '../../../lib/schemas/api';
-import { createUser, sendVerification } from '../../../lib/server/auth/accounts';
-import { startSession } from '../../../lib/server/auth/session';
-import { failure, json } from '../../../lib/server/services/respond';
+import { SIGN_UP_SENT, signUp } from '../../../lib/server/auth/accounts';
+import { clientIp, failure, json } from '../../../lib/server/services/respond';
 
-/** make an account, sign it in and mail the address-confirmation link */
-export const POST: APIRoute = async ({ request, cookies }) => {
-  const body = await readJson(request, signUpBody);
+/**
+ * Make an account and mail its confirmation link (which signs it in). The answer is the same
+ * for an address that has an account already: its owner gets a message instead.
+ */
+export const POST: APIRoute = async (ctx) => {
+  const body = await readJson(ctx.request, signUpBody);
   if ('response' in body) return body.response;
-  const made = await createUser(body.data);
-  if (!made.ok) return failure(made);
-  await startSession(cookies, made.value.id);
-  let verificationSent = true;
-  try {
-    await sendVerification(made.value);
-  } catch {
-    // the account stands; the link can be asked for again (POST /api/auth/resend-verification)
-    verificationSent = false;
-  }
-  return json({ user: { id: made.value.id, name: made.value.name, email: made.value.email, emailVerified: false }, verificationSent }, 201);
+  const result = await signUp(body.data, clientIp(ctx));
+  if (!result.ok) return failure(result);
+  return json({ sent: true, message: SIGN_UP_SENT(result.value.email) }, 202);
 };

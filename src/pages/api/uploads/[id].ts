@@ -11,5 +11,5 @@ export const GET: APIRoute = async ({ locals, params }) => {
   const upload = await getUpload(id);
   const auth = await authorize(locals, upload?.teamId ?? null);
   if ('response' in auth) return auth.response;
-  return Response.json({ upload }, { headers: { 'cache-control': 'private, max-age=60' } });
+  return Response.json({ upload }, { headers: { 'cache-control': 'private, no-store' } });
 };
