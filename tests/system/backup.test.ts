@@ -219,6 +219,7 @@ describe('a bad or foreign backup file', () => {
     ['malformed JSON', () => JSON.stringify(good).slice(0, 500), 400, 'bad_json', /not valid JSON/],
     ['another program’s file', () => JSON.stringify({ type: 'FeatureCollection', features: [] }), 422, 'not_a_backup', /not a Wallpulse job backup/, 'format'],
     ['a later format version', () => edited((f) => (f.version = 2)), 422, 'unsupported_version', /format version 2; this Wallpulse restores version 1/, 'version'],
+    ['a file nested 10,000 levels deep', () => `{"format":"wallpulse-job-backup","version":1,"job":${'['.repeat(10_000)}${']'.repeat(10_000)}}`, 422, 'too_deep', /deeper than 32 levels/],
     ['the wrong shape (an assembly without a name)', () => edited((f) => delete f.assemblies[0].name), 422, 'invalid', /assembly 1: name is required/, 'assemblies[0].name'],
     [
       'a document that fails the schema (a negative thickness)',

@@ -16,7 +16,7 @@ import {
   type JobBackup,
   type RestoreResult,
 } from '../../schemas/backup';
-import { fieldErrors } from '../http';
+import { MAX_JSON_DEPTH, fieldErrors, jsonDepth } from '../http';
 import { audit } from '../audit';
 
 /** a failure answered as the one JSON error shape */
@@ -239,6 +239,9 @@ function firstProblem(fields: Record<string, string>): string {
 
 /** parse and check a whole backup file; nothing is written here */
 export function parseBackup(text: string): { ok: true; backup: JobBackup } | BackupProblem {
+  if (jsonDepth(text, MAX_JSON_DEPTH) > MAX_JSON_DEPTH) {
+    return problem(422, 'too_deep', `The file nests lists and objects deeper than ${MAX_JSON_DEPTH} levels; a Wallpulse job backup needs about 12; ${NOTHING}.`);
+  }
   let raw: unknown;
   try {
     raw = JSON.parse(text);
