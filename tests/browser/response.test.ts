@@ -33,7 +33,7 @@ describe('Response pane', () => {
     await page.goto(`/assemblies/${assemblyId}`);
     const pane = page.getByTestId('response-pane');
     // the default exposure reports three days after four warm-up days, and runs by itself
-    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run 7 days');
+    await expect(pane.getByTestId('run').textContent()).resolves.toMatch(/^Run( again)? 7 days$/);
     await pane.getByTestId('figures').waitFor();
 
     await page.waitForTimeout(300);
@@ -71,7 +71,7 @@ describe('Response pane', () => {
     const shownSurface = await pane.getByTestId('readout-inside-surface').textContent();
 
     const [download] = await Promise.all([page.waitForEvent('download'), pane.getByTestId('export-csv').click()]);
-    const csv = Papa.parse<Record<string, string>>(readFileSync((await download.path())!, 'utf8'), { header: true, skipEmptyLines: true });
+    const csv = Papa.parse<Record<string, string>>(readFileSync((await download.path())!, 'utf8'), { header: true, skipEmptyLines: true, comments: '#' });
     const row = csv.data.find((r) => r.day === '1' && r['time of day'] === '15:00');
     expect(row).toBeDefined();
     expect(Number(row!['inside surface (°C)']).toFixed(2)).toBe(shownSurface);
@@ -102,13 +102,13 @@ describe('Response pane', () => {
     await expect.poll(() => bar.getAttribute('aria-valuenow').then(Number), { timeout: 20_000 }).toBeGreaterThan(0);
     await pane.getByRole('button', { name: 'Cancel' }).click();
     await pane.getByTestId('run-progress').waitFor({ state: 'detached', timeout: 2000 });
-    await expect(pane.textContent()).resolves.toMatch(/The settings changed since this run: press Run\./);
+    await expect(pane.getByTestId('stale-banner').textContent()).resolves.toMatch(/Changed since the run: days to report; time step\. To bring them up to date, press Run\./);
     await pane.getByTestId('figures').waitFor();
     // back to a short run: it runs by itself again
     const before = await pane.getByTestId('run-state').textContent();
     await exposure.getByLabel('Days to report').fill('2');
     await expect.poll(() => pane.getByTestId('run-state').textContent()).not.toBe(before);
-    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run 6 days');
+    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run again 6 days');
     expect(errors).toEqual([]);
     await context.close();
   });

@@ -5,6 +5,8 @@ import { closeTestDb, testDb } from '../support/db';
 import { auditLog, revisions, shareLinks } from '../../src/lib/server/db/schema';
 import { hashToken } from '../../src/lib/server/tokens';
 import { DEMO, call, demoTeamId, makeAssembly, makeJob, makeRevision, makeShare, smallDocument, uid } from './teamFixtures';
+import { packRun, toBase64, unpackRun } from '../../src/lib/workbench/keptRun';
+import { runDocument, type RunDone } from '../../src/lib/workbench/runDocument';
 
 let teamId: number;
 beforeAll(async () => {
@@ -159,19 +161,32 @@ describe('check workflow', () => {
     expect(detail.moves).toEqual([]);
   });
 
-  it('keeps runs with their summary, and the series only on request', async () => {
+  it('keeps runs with their summary, and the run packed only when sent, given back as the same bytes', async () => {
     const assemblyId = await makeAssembly(await makeJob(teamId));
     const id = await makeRevision(assemblyId);
-    const res = await call('POST', `/api/revisions/${id}/runs`, { userId: DEMO.engineer, body: { exposure: smallDocument().exposure, summary: { uValue: 1.92, timeLagHours: 6.1, label: 'base case', peak: null }, series: { time: [0, 900] } } });
+    const doc = smallDocument();
+    const run = runDocument(doc) as RunDone;
+    const packed = packRun(run);
+    const res = await call('POST', `/api/revisions/${id}/runs`, { userId: DEMO.engineer, body: { exposure: doc.exposure, summary: { uValue: 1.92, timeLagHours: 6.1, label: 'base case', peak: null }, packed: toBase64(packed) } });
     expect(res.status).toBe(201);
-    const { run } = await res.json();
+    const { run: kept } = await res.json();
+    const figuresOnly = await call('POST', `/api/revisions/${id}/runs`, { userId: DEMO.engineer, body: { exposure: doc.exposure, summary: { uValue: 1.92 } } });
+    expect(figuresOnly.status).toBe(201);
     const list = await (await call('GET', `/api/revisions/${id}/runs`, { userId: DEMO.checker })).json();
-    expect(list.items[0]).toMatchObject({ id: run.id, summary: { uValue: 1.92, timeLagHours: 6.1, label: 'base case', peak: null }, hasSeries: true });
-    expect(list.items[0].series).toBeUndefined();
-    const one = await (await call('GET', `/api/runs/${run.id}`, { userId: DEMO.checker })).json();
-    expect(one.run.series).toEqual({ time: [0, 900] });
+    expect(list.items.map((r: { hasSeries: boolean }) => r.hasSeries)).toEqual([false, true]);
+    expect(list.items[1]).toMatchObject({ id: kept.id, summary: { uValue: 1.92, timeLagHours: 6.1, label: 'base case', peak: null }, hasSeries: true, packedBytes: packed.length });
+    const bytes = await call('GET', `/api/runs/${kept.id}/packed`, { userId: DEMO.checker });
+    expect(bytes.headers.get('content-type')).toBe('application/octet-stream');
+    const back = new Uint8Array(await bytes.arrayBuffer());
+    expect(back).toEqual(packed);
+    expect(unpackRun(back).figures).toEqual(run.figures);
+    expect((await call('GET', `/api/runs/${JSON.parse(await figuresOnly.text()).run.id}/packed`, { userId: DEMO.checker })).status).toBe(404);
     const bad = await call('POST', `/api/revisions/${id}/runs`, { userId: DEMO.engineer, body: { exposure: {}, summary: { uValue: 'x'.repeat(300) } } });
     expect(bad.status).toBe(422);
+    // bytes that are not a packed run are refused with the field named
+    const junk = await call('POST', `/api/revisions/${id}/runs`, { userId: DEMO.engineer, body: { exposure: doc.exposure, summary: {}, packed: toBase64(new Uint8Array([1, 2, 3, 4, 5, 6, 7, 8, 9])) } });
+    expect(junk.status).toBe(422);
+    expect((await junk.json()).error.fields.packed).toMatch(/^The packed run cannot be read: not a packed run/);
   });
 });
 

@@ -6,6 +6,9 @@ import { errorOf, formatWhen, send, STATE_LABEL } from '../team/format';
 import type * as rows from '../../lib/schemas/rows';
 import type { RevisionState, Role, Wire } from '../../lib/schemas/rows';
 import type { RevisionInfo } from '../../lib/workbench/store';
+import { summaryRows } from '../../lib/workbench/figureDefs';
+import CautionNote from '../CautionNote';
+import RevokeDialog from './RevokeDialog';
 
 /** a state a revision may be moved to */
 type Target = RevisionState;
@@ -44,12 +47,6 @@ const columns: ColumnDef<RevisionRow>[] = [
   { id: 'comments', header: 'Comments', enableSorting: false, meta: { align: 'right' }, cell: ({ row }) => row.original.commentCount },
 ];
 
-function formatFigure(v: number | string | null): string {
-  if (v === null) return '—';
-  if (typeof v === 'number') return Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toPrecision(3);
-  return v;
-}
-
 /** the revision history of an assembly: states with who and when, comments, check actions, runs and share links */
 export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { assemblyId: number; role: Role; initialRevisionId: number | null }) {
   const [selected, setSelected] = useState<number | null>(initialRevisionId);
@@ -69,6 +66,8 @@ export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { 
   const [shareError, setShareError] = useState<string | null>(null);
   const [newUrl, setNewUrl] = useState<string | null>(null);
   const canEdit = role === 'admin' || role === 'engineer';
+  /** the share link the revoke dialog asks about */
+  const [revoking, setRevoking] = useState<ShareRow | null>(null);
 
   // with no revision asked for, show the newest
   useEffect(() => {
@@ -171,7 +170,7 @@ export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { 
   }
 
   async function revoke(id: number) {
-    if (!window.confirm('Revoke this link? Anyone holding it sees a “withdrawn” page from now on.')) return;
+    setRevoking(null);
     const res = await send('POST', `/api/shares/${id}/revoke`);
     if (!res.ok) setShareError((await errorOf(res)).message);
     setReload((n) => n + 1);
@@ -291,16 +290,18 @@ export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { 
 
             <div>
               <h3 className="font-semibold">Runs</h3>
+              {runs.length > 0 ? <div className="mt-1"><CautionNote compact /></div> : null}
               {runs.length === 0 ? <p className="mt-1 text-sm text-ink-faint">No runs stored for this revision. Run it in the workbench and keep the run.</p> : null}
               <ul className="mt-2 space-y-2 text-sm" data-testid="runs">
                 {runs.map((r) => (
                   <li key={r.id} className="rounded border border-line bg-panel px-3 py-2">
-                    <div className="text-xs text-ink-soft">{formatWhen(r.createdAt)}{r.createdByName ? ` by ${r.createdByName}` : ''}{r.hasSeries ? ' · with series' : ''}</div>
-                    <dl className="mt-1 grid grid-cols-[auto_auto] gap-x-4 gap-y-0.5">
-                      {Object.entries(r.summary).slice(0, 12).map(([k, v]) => (
-                        <div key={k} className="contents">
-                          <dt className="text-ink-soft">{k}</dt>
-                          <dd className="tabular text-right">{formatFigure(v)}</dd>
+                    <div className="text-xs text-ink-soft">{formatWhen(r.createdAt)}{r.createdByName ? ` by ${r.createdByName}` : ''}{r.hasSeries ? ' · with its series' : ' · figures only'}</div>
+                    <dl className="mt-1 grid grid-cols-[auto_auto_auto] gap-x-3 gap-y-0.5">
+                      {summaryRows(r.summary).map((f) => (
+                        <div key={f.key} className="contents">
+                          <dt className="text-ink-soft" title={f.how}>{f.label}</dt>
+                          <dd className="tabular text-right">{f.value}</dd>
+                          <dd className="text-ink-soft">{f.unit}</dd>
                         </div>
                       ))}
                     </dl>
@@ -356,7 +357,7 @@ export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { 
                         <td className="py-1 pr-2">{s.lastOpenedAt ? formatWhen(s.lastOpenedAt) : 'not yet'}</td>
                         <td className="py-1 pr-2 text-right tabular">{s.openCount}</td>
                         <td className="py-1 pr-2">{s.status}{s.expiresAt && s.status === 'active' ? ` until ${formatWhen(s.expiresAt)}` : ''}</td>
-                        <td className="py-1">{canEdit && s.status === 'active' ? <button type="button" className="text-danger hover:underline" onClick={() => revoke(s.id)}>Revoke</button> : null}</td>
+                        <td className="py-1">{canEdit && s.status === 'active' ? <button type="button" className="text-danger hover:underline" onClick={() => setRevoking(s)}>Revoke</button> : null}</td>
                       </tr>
                     ))}
                   </tbody>
@@ -366,6 +367,7 @@ export default function ReviewScreen({ assemblyId, role, initialRevisionId }: { 
           </>
         )}
       </section>
+      {revoking ? <RevokeDialog share={revoking} onCancel={() => setRevoking(null)} onConfirm={() => void revoke(revoking.id)} /> : null}
     </div>
   );
 }

@@ -1,169 +1,26 @@
 // the figures table of a run: simulated beside analytic, each with how it was computed
 import type { RunDone } from '../../lib/workbench/runDocument';
 import type { Exposure } from '../../lib/schemas/workbench';
-import { dayClock, PERIODIC_TOLERANCE } from '../../lib/workbench/figures';
+import { PERIODIC_TOLERANCE } from '../../lib/workbench/figures';
+import { figureRows } from '../../lib/workbench/figureRows';
+import { fixed } from '../../lib/workbench/figureDefs';
 
-const H = 3600;
-
-/** fixed decimals, a real minus sign, '–' for no value */
-export function fixed(v: number | null | undefined, digits: number): string {
-  if (v === null || v === undefined || !Number.isFinite(v)) return '–';
-  const s = v.toFixed(digits);
-  return s.startsWith('-') ? `\u2212${s.slice(1)}` : s;
-}
-
-interface Row {
-  key: string;
-  label: string;
-  unit: string;
-  simulated: string;
-  analytic: string;
-  note?: string;
-  how: string;
-  warn?: boolean;
-}
-
-export function figureRows(run: RunDone, exposure: Exposure): Row[] {
-  const f = run.figures;
-  const a = run.analytic;
-  const lastDay = `the last simulated day (${dayClock(f.lastPeriodFrom - exposure.warmupDays * 86400)} to the end)`;
-  const drive = run.series.solAir.some((v, k) => v !== run.series.outsideAir[k]) ? 'sol-air temperature' : 'outdoor air temperature';
-  const rows: Row[] = [
-    {
-      key: 'uValue',
-      label: 'U-value',
-      unit: 'W/m²K',
-      simulated: '',
-      analytic: fixed(a.steady.uValue, 3),
-      how: 'Steady state: 1 / (R_se + Σ d/λ + R_si), ISO 6946.',
-    },
-    {
-      key: 'decrementFactor',
-      label: 'Decrement factor',
-      unit: '–',
-      simulated: fixed(f.decrementFactor.simulated, 3),
-      analytic: fixed(f.decrementFactor.analytic, 3),
-      how: `Simulated: amplitude of the first harmonic of the inside heat flux over ${lastDay}, divided by the amplitude of the first harmonic of the ${drive} and by the U-value. Analytic: ISO 13786 transfer matrices, |Y₁₂| / U.`,
-    },
-    {
-      key: 'timeLag',
-      label: 'Time lag',
-      unit: 'h',
-      simulated: fixed(f.timeLag.simulated / H, 2),
-      analytic: fixed(f.timeLag.analytic / H, 2),
-      how: `Simulated: phase of the first harmonic of the inside heat flux minus that of the ${drive}, over ${lastDay}. Analytic: ISO 13786, the phase of Y₁₂.`,
-    },
-    {
-      key: 'periodicTransmittance',
-      label: 'Periodic thermal transmittance',
-      unit: 'W/m²K',
-      simulated: fixed(f.periodicTransmittance.simulated, 3),
-      analytic: fixed(f.periodicTransmittance.analytic, 3),
-      how: 'Inside heat flux amplitude per kelvin of outdoor amplitude; simulated from the fitted harmonics, analytic |Y₁₂| of ISO 13786.',
-    },
-    {
-      key: 'peakInsideFlux',
-      label: 'Peak inside heat flux',
-      unit: 'W/m²',
-      simulated: fixed(f.peakInsideFlux.value, 2),
-      analytic: '',
-      note: dayClock(f.peakInsideFlux.time),
-      how: 'Largest inside heat flux (positive into the room) at the output times of the reported days.',
-    },
-    {
-      key: 'heatGained',
-      label: 'Heat into the room, last day',
-      unit: 'Wh/m²',
-      simulated: fixed(f.heatGained, 1),
-      analytic: '',
-      how: `Time integral of the positive part of the inside heat flux over ${lastDay} (trapezoids split where the flux changes sign).`,
-    },
-    {
-      key: 'heatLost',
-      label: 'Heat out of the room, last day',
-      unit: 'Wh/m²',
-      simulated: fixed(f.heatLost, 1),
-      analytic: '',
-      how: `Time integral of the negative part of the inside heat flux over ${lastDay}, shown as a positive amount.`,
-    },
-    {
-      key: 'insideSurfaceMin',
-      label: 'Inside surface, lowest',
-      unit: '°C',
-      simulated: fixed(f.insideSurfaceMin.value, 2),
-      analytic: '',
-      note: dayClock(f.insideSurfaceMin.time),
-      how: 'Lowest inside surface temperature at the output times of the reported days.',
-    },
-    {
-      key: 'insideSurfaceMax',
-      label: 'Inside surface, highest',
-      unit: '°C',
-      simulated: fixed(f.insideSurfaceMax.value, 2),
-      analytic: '',
-      note: dayClock(f.insideSurfaceMax.time),
-      how: 'Highest inside surface temperature at the output times of the reported days.',
-    },
-  ];
-  if (f.lowestInterface) {
-    rows.push({
-      key: 'lowestInterface',
-      label: 'Lowest interface temperature',
-      unit: '°C',
-      simulated: fixed(f.lowestInterface.value, 2),
-      analytic: '',
-      note: `${f.lowestInterface.name}, ${dayClock(f.lowestInterface.time)}`,
-      how: 'Lowest temperature of any interface between two layers at the output times of the reported days.',
-      warn: f.belowDewPoint,
-    });
-  }
-  if (f.dewPoint) {
-    rows.push({
-      key: 'dewPoint',
-      label: 'Dew point of the indoor air',
-      unit: '°C',
-      simulated: fixed(f.dewPoint.value, 2),
-      analytic: '',
-      note: `at ${fixed(f.dewPoint.airTemperature, 1)} °C and ${fixed(f.dewPoint.relativeHumidity, 0)} % RH`,
-      how: 'Magnus formula (Alduchov & Eskridge coefficients, over water) at the mean indoor air temperature of the reported days and the indoor relative humidity.',
-      warn: f.belowDewPoint,
-    });
-  }
-  rows.push(
-    {
-      key: 'energyBalanceError',
-      label: 'Energy-balance error',
-      unit: '–',
-      simulated: Number.isFinite(f.energyBalanceError) ? f.energyBalanceError.toExponential(1) : '–',
-      analytic: '',
-      how: '|heat in at the outside − heat out at the inside − change of stored heat| over the whole run, relative to the largest of the three.',
-      warn: f.energyBalanceError > 1e-6,
-    },
-    {
-      key: 'mesh',
-      label: 'Mesh and step',
-      unit: '',
-      simulated: `${f.cells} cells`,
-      analytic: '',
-      note: `largest cell ${fixed(f.maxCellSize * 1000, 1)} mm, step ${f.timeStep} s, Crank–Nicolson`,
-      how: 'Each layer gets at least 4 cells and no cell thicker than the largest cell; the time step is the run setting.',
-    },
-  );
-  return rows;
-}
+export { fixed };
 
 export default function FiguresTable({ run, exposure }: { run: RunDone; exposure: Exposure }) {
   const f = run.figures;
   const rows = figureRows(run, exposure);
+  // the periodic-state check means something only for a repeating outdoor day
+  const periodic = exposure.outdoor.mode !== 'series';
   return (
     <div className="flex flex-col gap-2">
-      {f.periodic.checked && !f.periodic.reached ? (
+      {periodic && f.periodic.checked && !f.periodic.reached ? (
         <p role="alert" className="rounded border border-warn/40 bg-warn-soft px-3 py-2" data-testid="periodic-warning">
           <strong>Not yet a periodic state.</strong> The inside surface temperature at the same time of the last two simulated days differs by up to {fixed(f.periodic.maxDifference, 3)} K
           (criterion: at most {PERIODIC_TOLERANCE} K). Add warm-up days before reading the simulated decrement factor and time lag.
         </p>
       ) : null}
-      {!f.periodic.checked ? <p className="text-xs text-ink-soft">The periodic state is not checked: the run is shorter than two days.</p> : null}
+      {periodic && !f.periodic.checked ? <p className="text-xs text-ink-soft">The periodic state is not checked: the run is shorter than two days.</p> : null}
       <table className="w-full text-sm tabular" data-testid="figures">
         <thead>
           <tr className="border-b border-line text-ink-soft text-xs">

@@ -1,7 +1,7 @@
 import { memo, useEffect, useRef, useState, type ReactNode } from 'react';
 import type { Figures } from '../../lib/thermal/index.ts';
 import type { DocLayer, Exposure } from '../../lib/schemas/workbench';
-import { useWorkbench } from '../../lib/workbench/store';
+import { selectHasInvalidDrafts, useWorkbench } from '../../lib/workbench/store';
 import Hint from './Hint';
 import { fixed, mm } from './format';
 
@@ -88,6 +88,8 @@ function ScrollBox({ label, children }: { label: string; children: ReactNode }) 
 function LiveFigures({ layers, exposure, figures }: Props) {
   const highlightedId = useWorkbench((s) => s.highlightedId);
   const setHighlighted = useWorkbench((s) => s.setHighlighted);
+  // a field holding text that is not in the model: the tiles show the last valid input, and say so
+  const invalid = useWorkbench(selectHasInvalidDrafts);
   if (!figures || layers.length === 0) {
     return (
       <section aria-label="Live figures" className="rounded border border-dashed border-line-strong bg-paper px-4 py-6 text-center text-sm text-ink-soft">
@@ -105,7 +107,12 @@ function LiveFigures({ layers, exposure, figures }: Props) {
   const hBar = (1 / rse + 1 / rsi) / 2;
   return (
     <section aria-label="Live figures" className="space-y-3">
-      <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3" aria-live="polite">
+      {invalid ? (
+        <p role="status" className="rounded border border-warn/40 bg-warn-soft px-3 py-1.5 text-xs" data-testid="live-invalid">
+          <strong>Last valid input:</strong> a field holds a value that is not accepted, so these figures are of the values before it. Correct the marked field to update them.
+        </p>
+      ) : null}
+      <dl className={`grid grid-cols-2 gap-2 sm:grid-cols-3 ${invalid ? 'opacity-60' : ''}`} aria-live="polite" data-invalid={invalid ? 'true' : 'false'}>
         <Figure label="Total thickness" testId="fig-thickness" value={mm(thickness)} unit="mm" hint="Σ d: the sum of the layer thicknesses." />
         <Figure
           label="Total resistance R"

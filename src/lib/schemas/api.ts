@@ -121,7 +121,12 @@ export const runBody = z.object({
   summary: z.record(z.string().max(80), figure, { error: 'summary must be an object of figures' }).refine((s) => Object.keys(s).length <= 200, {
     error: 'summary must hold at most 200 figures',
   }),
-  series: z.unknown().optional(),
+  /** the run packed by src/lib/workbench/keptRun.ts, base64; left out to keep the figures only */
+  packed: z
+    .string()
+    .max(7_200_000, { error: 'packed must be at most 5 MB (base64)' })
+    .regex(/^[A-Za-z0-9+/]*={0,2}$/, { error: 'packed must be base64' })
+    .optional(),
 });
 
 export const shareBody = z.object({

@@ -220,7 +220,10 @@ export function figures(input: FigureInput): RunFigures {
   // periodic state: inside surface at the same times of the last two days
   let periodic: RunFigures['periodic'];
   const criterion = `inside surface temperature at the same time of the last two simulated days differs by at most ${PERIODIC_TOLERANCE} K`;
-  if (end - period * 2 < -1e-6) {
+  if (!input.outdoorPeriodic) {
+    // an uploaded series does not repeat daily: there is no periodic state to reach
+    periodic = { checked: false, reached: false, maxDifference: NaN, criterion: `${criterion} (not checked: the outdoor series does not repeat daily)` };
+  } else if (end - period * 2 < -1e-6) {
     periodic = { checked: false, reached: false, maxDifference: NaN, criterion: `${criterion} (not checked: the run is shorter than two days)` };
   } else {
     // samples are uniform: the sample one period earlier is a fixed number of indices back

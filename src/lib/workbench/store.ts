@@ -289,6 +289,9 @@ export function selectModel(state: Pick<WorkbenchState, 'doc' | 'upload'>): Mode
   return model;
 }
 
+/** a day without swing, for the live figures of a document on an uploaded series */
+const STILL_DAY: Outdoor = { mode: 'sine', mean: 0, swing: 0, peakHour: 0 };
+
 let figuresCache: { layers: DocLayer[]; exposure: Exposure; figures: Figures | null } | null = null;
 
 /**
@@ -300,16 +303,10 @@ export function selectFigures(state: Pick<WorkbenchState, 'doc'>): Figures | nul
   if (figuresCache && figuresCache.layers === layers && figuresCache.exposure === exposure) return figuresCache.figures;
   let figures: Figures | null = null;
   if (layers.length > 0) {
-    const out = exposure.outdoor;
-    figures = analyse({
-      layers,
-      outside: {
-        surfaceResistance: exposure.outsideSurfaceResistance,
-        air: out.mode === 'series' ? { kind: 'constant', value: 0 } : { kind: 'sine', mean: out.mean, amplitude: out.swing / 2, period: 86400, peakTime: out.peakHour * 3600 },
-      },
-      inside: { surfaceResistance: exposure.insideSurfaceResistance, air: { kind: 'constant', value: 20 } },
-      mesh: { maxCellSize: exposure.maxCellSize, minCellsPerLayer: 4 },
-    });
+    // an uploaded series is not needed for these figures (they are of the build-up at a one-day
+    // period): the document goes through toModel with a still outdoor day in its place
+    const doc = exposure.outdoor.mode === 'series' ? { ...state.doc, exposure: { ...exposure, outdoor: STILL_DAY } } : state.doc;
+    figures = analyse(toModel(doc));
   }
   figuresCache = { layers, exposure, figures };
   return figures;

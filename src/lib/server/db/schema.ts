@@ -25,6 +25,14 @@ export const jsonText = <T>(name: string) =>
     fromDriver: (value) => (typeof value === 'string' ? (JSON.parse(value) as T) : (value as T)),
   })(name);
 
+/** bytes kept as MEDIUMBLOB (up to 16 MB): a packed kept run (src/lib/workbench/keptRun.ts) */
+export const packedBytes = (name: string) =>
+  customType<{ data: Buffer; driverData: Buffer }>({
+    dataType: () => 'mediumblob',
+    toDriver: (value) => value,
+    fromDriver: (value) => (Buffer.isBuffer(value) ? value : Buffer.from(value as Uint8Array)),
+  })(name);
+
 const now = (name: string) => datetime(name, { mode: 'date', fsp: 3 }).notNull().$defaultFn(() => new Date());
 
 export const roles = ['admin', 'engineer', 'checker'] as const;
@@ -213,8 +221,8 @@ export const runs = mysqlTable(
       .references(() => revisions.id, { onDelete: 'cascade' }),
     exposure: jsonText<unknown>('exposure').notNull(),
     summary: jsonText<unknown>('summary').notNull(),
-    /** optional sampled series, kept only when the user asks */
-    series: jsonText<unknown>('series'),
+    /** the run packed (series as Float32 columns, zlib-compressed, figures in a header); null when kept without its series */
+    packed: packedBytes('packed'),
     createdBy: varchar('created_by', { length: 255 }).references(() => users.id, { onDelete: 'set null' }),
     createdAt: now('created_at'),
   },

@@ -207,48 +207,4 @@ export async function transition(
   });
 }
 
-// --- runs ---
-
-export async function addRun(revisionId: number, userId: string, input: { exposure: unknown; summary: Record<string, number | string | null>; series?: unknown }) {
-  const createdAt = new Date();
-  const [row] = await db
-    .insert(runs)
-    .values({ revisionId, createdBy: userId, exposure: input.exposure, summary: input.summary, series: input.series ?? null, createdAt })
-    .$returningId();
-  return { id: row.id, createdAt };
-}
-
-/** what a run answers with besides its ids: what it ran, what it found, and who ran it when */
-const runFields = {
-  exposure: runs.exposure,
-  summary: runs.summary,
-  series: runs.series,
-  createdByName: users.name,
-  createdAt: runs.createdAt,
-};
-
-export async function runsOf(revisionId: number, withSeries = false) {
-  const rows = await db
-    .select({ id: runs.id, ...runFields })
-    .from(runs)
-    .leftJoin(users, eq(users.id, runs.createdBy))
-    .where(eq(runs.revisionId, revisionId))
-    .orderBy(desc(runs.createdAt), desc(runs.id))
-    .limit(100);
-  return rows.map(({ series, ...r }) => ({ ...r, hasSeries: series !== null, ...(withSeries ? { series } : {}) }));
-}
-
-export async function getRun(runId: number) {
-  const rows = await db
-    .select({ id: runs.id, revisionId: runs.revisionId, ...runFields })
-    .from(runs)
-    .leftJoin(users, eq(users.id, runs.createdBy))
-    .where(eq(runs.id, runId))
-    .limit(1);
-  return rows[0] ?? null;
-}
-
-export async function revisionOfRun(runId: number): Promise<number | null> {
-  const rows = await db.select({ revisionId: runs.revisionId }).from(runs).where(eq(runs.id, runId)).limit(1);
-  return rows[0]?.revisionId ?? null;
-}
+// runs kept with a revision: ./runs.ts

@@ -10,7 +10,7 @@ import type { ListQuery } from '../../schemas/api';
 import type { ShareRow } from '../../schemas/rows';
 import { likePattern, offsetOf, orderFor, pageOf, type Page } from './list';
 import { fail, type Fail } from './teams';
-import { runsOf } from './revisions';
+import { runsOf } from './runs';
 
 export const shareUrl = (token: string) => `${PUBLIC_BASE_URL}/s/${token}`;
 
@@ -129,7 +129,7 @@ export interface SharedRevision {
  * Open a share link as a guest: records the opening (count, time, audit row).
  * Unknown → 404; revoked or expired → 410 with a message for the guest.
  */
-export async function openShare(token: string, ip = '', record = true): Promise<{ ok: true; shared: SharedRevision } | Fail> {
+export async function openShare(token: string, ip = ''): Promise<{ ok: true; shared: SharedRevision; revisionId: number; newestRunId: number | null } | Fail> {
   if (!token || token.length < 20 || token.length > 100) return fail(404, 'share_not_found', 'This link does not lead to anything. Check that the whole link was copied.');
   const rows = await db
     .select({
@@ -156,14 +156,14 @@ export async function openShare(token: string, ip = '', record = true): Promise<
   if (!row) return fail(404, 'share_not_found', 'This link does not lead to anything. Check that the whole link was copied.');
   if (row.revokedAt) return fail(410, 'share_revoked', 'This link was withdrawn by the team that shared it. Ask them for a new one if you still need it.');
   if (row.expiresAt && row.expiresAt.getTime() <= Date.now()) return fail(410, 'share_expired', 'This link has expired. Ask the team that shared it for a new one.');
-  if (record) {
-    await db
-      .update(shareLinks)
-      .set({ lastOpenedAt: new Date(), openCount: sql`${shareLinks.openCount} + 1` })
-      .where(eq(shareLinks.id, row.id));
-    await audit({ action: 'share_opened', teamId: row.teamId, target: `share:${row.id}`, ip });
-  }
-  const runs = (await runsOf(row.revisionId)).map((r) => ({ createdAt: r.createdAt, exposure: r.exposure, summary: r.summary }));
+  // every opening is counted and audited, whoever asks and however
+  await db
+    .update(shareLinks)
+    .set({ lastOpenedAt: new Date(), openCount: sql`${shareLinks.openCount} + 1` })
+    .where(eq(shareLinks.id, row.id));
+  await audit({ action: 'share_opened', teamId: row.teamId, target: `share:${row.id}`, ip });
+  const kept = await runsOf(row.revisionId);
+  const runs = kept.map((r) => ({ createdAt: r.createdAt, exposure: r.exposure, summary: r.summary }));
   return {
     ok: true,
     shared: {
@@ -172,5 +172,8 @@ export async function openShare(token: string, ip = '', record = true): Promise<
       revision: { number: row.number, state: row.state, createdAt: row.createdAt, model: withoutLibraryRefs(row.model) },
       runs,
     },
+    // for the server's own use (the cached view), never sent to the guest
+    revisionId: row.revisionId,
+    newestRunId: kept.find((r) => r.hasSeries)?.id ?? null,
   };
 }

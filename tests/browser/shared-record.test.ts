@@ -1,0 +1,84 @@
+// the Shared view of an issued revision reads without JavaScript: its figures and charts are
+// drawn on the server from the run kept with the revision; every opening is counted, also
+// through the API; a withdrawn link answers 410 Gone.
+import { describe, it, expect, beforeAll } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { baseUrl, openPage, screenshot, useBrowser } from '../support/browser';
+import { testDb } from '../support/db';
+import { shareLinks } from '../../src/lib/server/db/schema';
+import { hashToken } from '../../src/lib/server/tokens';
+import { DEMO, call } from '../system/teamFixtures';
+import { issuedRecord, type IssuedRecord } from '../system/recordFixtures';
+import { formatFigure } from '../../src/lib/workbench/figureDefs';
+
+const browser = useBrowser();
+let record: IssuedRecord;
+beforeAll(async () => {
+  record = await issuedRecord();
+});
+
+const opens = async (token: string) => (await testDb().select({ n: shareLinks.openCount }).from(shareLinks).where(eq(shareLinks.tokenHash, hashToken(token))))[0].n;
+
+describe('the Shared view', () => {
+  it('shows the kept run’s figures and charts with JavaScript turned off', async () => {
+    const context = await browser().newContext({ javaScriptEnabled: false, baseURL: baseUrl(), viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const res = await page.goto(`/s/${record.token}`);
+    expect(res?.status()).toBe(200);
+    await expect(page.getByTestId('shared-run-origin').textContent()).resolves.toMatch(/^From the run kept with this revision on /);
+    const table = page.getByTestId('shared-figure-table');
+    // the same figures the engineer kept, to the decimals the figure definitions give them
+    await expect(table.locator('[data-figure="decrementFactor"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('decrementFactorSimulated', record.summary.decrementFactorSimulated));
+    await expect(table.locator('[data-figure="timeLag"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('timeLagSimulatedH', record.summary.timeLagSimulatedH));
+    await expect(table.locator('[data-figure="peakInsideFlux"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakInsideFluxWm2', record.summary.peakInsideFluxWm2));
+    // the engine's housekeeping stays with the team
+    await expect(table.locator('[data-figure="mesh"]').count()).resolves.toBe(0);
+    for (const id of ['chart-surface', 'chart-flux', 'chart-profile']) await expect(page.getByTestId(id).count()).resolves.toBe(1);
+    await expect(page.getByTestId('shared-verdicts').textContent()).resolves.toMatch(/Dew point/);
+    const text = await page.locator('body').innerText();
+    expect(text).not.toMatch(/Add a layer/);
+    await screenshot(page, 'shared-view-no-js');
+    await context.close();
+  });
+
+  it('counts and audits every opening, the page and the API alike, whatever the query says', async () => {
+    const before = await opens(record.token);
+    expect((await fetch(`${baseUrl()}/s/${record.token}`)).status).toBe(200);
+    expect((await fetch(`${baseUrl()}/api/shared/${record.token}?record=0`)).status).toBe(200);
+    expect((await fetch(`${baseUrl()}/s/${record.token}?record=0`)).status).toBe(200);
+    expect(await opens(record.token)).toBe(before + 3);
+  });
+
+  it('answers 410 Gone for a withdrawn link', async () => {
+    const list = await (await call('GET', `/api/revisions/${record.revisionId}/shares`, { userId: DEMO.engineer })).json();
+    expect((await call('POST', `/api/shares/${list.items[0].id}/revoke`, { userId: DEMO.engineer })).status).toBe(200);
+    const res = await fetch(`${baseUrl()}/s/${record.token}`);
+    expect(res.status).toBe(410);
+    expect(res.statusText).toBe('Gone');
+    await expect(res.text()).resolves.toContain('This link was withdrawn');
+  });
+
+  it('has its Report as the team reads it, with the PDF link', async () => {
+    const { page, context, errors } = await openPage(browser(), { userId: DEMO.checker, viewport: { width: 1100, height: 900 } });
+    const res = await page.goto(`/assemblies/${record.assemblyId}/report`);
+    expect(res?.status()).toBe(200);
+    await expect(page.getByTestId('report-pdf').getAttribute('href')).resolves.toBe(`/assemblies/${record.assemblyId}/report.pdf?revision=${record.revisionNumber}`);
+    await expect(page.getByTestId('check-trail').textContent()).resolves.toContain(record.notes.checked);
+    await screenshot(page, 'report');
+    await page.emulateMedia({ media: 'print' });
+    await expect(page.getByTestId('report-pdf').isVisible()).resolves.toBe(false);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
+  it('hydrates the playback on top with JavaScript', async () => {
+    const fresh = await issuedRecord();
+    const guest = await openPage(browser());
+    await guest.page.goto(`/s/${fresh.token}`);
+    await guest.page.getByTestId('shared-playback').scrollIntoViewIfNeeded();
+    await guest.page.getByTestId('shared-playback').getByTestId('profile-canvas').waitFor({ timeout: 30_000 });
+    await screenshot(guest.page, 'shared-view');
+    expect(guest.errors).toEqual([]);
+    await guest.context.close();
+  });
+});
