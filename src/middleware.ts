@@ -76,7 +76,7 @@ const guard = defineMiddleware(async (context, next) => {
       }
       return problemPage(
         503,
-        'Wallpulse is unavailable for a moment',
+        'Wallpulse is temporarily unavailable',
         [
           'The server cannot reach its database just now, so this page cannot be shown. Nothing saved is lost.',
           'Work you have not saved yet stays in this browser: the workbench keeps your draft and offers it back when you open the assembly again.',
@@ -90,6 +90,16 @@ const guard = defineMiddleware(async (context, next) => {
     return isApi
       ? apiError(500, 'server_error', `Something went wrong on the server (error ${id}). Try again; if it keeps happening, tell us the error number.`)
       : problemPage(500, 'Something went wrong', [`The server could not answer this page (error ${id}). Try again; if it keeps happening, tell us the error number.`]);
+  }
+
+  // an address or method nobody serves: the API's error shape, or a page of our own (Astro's default has an inline style)
+  if (response.status === 404 && (response.headers.get('content-type') ?? '').includes('text/html')) {
+    const ours = await response.clone().text().then((t) => !t.includes('<title>404: Not Found</title>'), () => true);
+    if (!ours) {
+      return isApi
+        ? apiError(404, 'not_found', `Nothing answers ${request.method} at this address.`)
+        : problemPage(404, 'Page not found', ['There is no page at this address. Check the link, or start again from the home page.']);
+    }
   }
 
   try {

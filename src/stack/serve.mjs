@@ -32,11 +32,28 @@ const trustList = (process.env.TRUSTED_PROXIES ?? '')
   .filter(Boolean);
 const trust = proxyaddr.compile(trustList);
 
+/** past this, a refused body is no longer read away: the connection is cut */
+const DRAIN_CAP = 256 * 1024 * 1024;
+
 function tooLarge(res, limit) {
   const body = JSON.stringify({ error: { code: 'too_large', message: `The request body is larger than ${formatBytes(limit)}, the limit for this address.` } });
-  // the rest of the body is not read: close the connection after this answer
-  res.writeHead(413, { 'content-type': 'application/json', 'cache-control': 'no-store', connection: 'close', 'content-length': Buffer.byteLength(body) });
+  res.writeHead(413, { 'content-type': 'application/json', 'cache-control': 'no-store', 'content-length': Buffer.byteLength(body) });
   res.end(body);
+}
+
+/**
+ * Read the rest of a refused body and drop it, so that the client, still sending, gets to
+ * read the 413 (a connection cut mid-upload reaches most clients as a network error); nothing
+ * is kept, and a body past DRAIN_CAP gets the connection cut after all.
+ */
+function drain(req, already) {
+  let seen = already;
+  req.removeAllListeners('data');
+  req.on('data', (chunk) => {
+    seen += chunk.length;
+    if (seen > DRAIN_CAP) req.destroy();
+  });
+  req.resume();
 }
 
 const server = http.createServer((req, res) => {
@@ -60,8 +77,8 @@ const server = http.createServer((req, res) => {
   const limit = bodyLimitFor(method, (req.url ?? '/').split('?')[0]);
   const declared = Number(req.headers['content-length'] ?? 0);
   if (declared > limit) {
-    req.resume();
     tooLarge(res, limit);
+    drain(req, 0);
     return;
   }
   const chunks = [];
@@ -74,9 +91,7 @@ const server = http.createServer((req, res) => {
       refused = true;
       chunks.length = 0;
       tooLarge(res, limit);
-      // stop reading; what is still in flight is dropped with the connection
-      req.unpipe();
-      res.on('finish', () => req.destroy());
+      drain(req, received);
       return;
     }
     chunks.push(chunk);

@@ -26,13 +26,13 @@ describe('sign up', () => {
     expect(error.fields.password).toMatch(/at least 10 characters/);
   });
 
-  it('mails a single-use verification link, stored only as its sha256, that confirms the address', async () => {
+  it('mails a single-use verification link, stored only as its sha256, that confirms the address and signs in', async () => {
     const email = `new-${uid()}@example.test`;
     const res = await call('POST', '/api/auth/signup', { body: { name: 'Maren Holt', email, password: 'a long enough password' } });
-    expect(res.status).toBe(201);
-    const cookie = cookieOf(res);
-    expect(res.headers.get('set-cookie')).toMatch(/HttpOnly/i);
-    expect(res.headers.get('set-cookie')).toMatch(/SameSite=Lax/i);
+    expect(res.status).toBe(202);
+    // not signed in until the link proves the mailbox
+    expect(res.headers.get('set-cookie')).toBeNull();
+    // the worker sends the queued message within a few seconds
     const mail = await lastMailTo(email);
     const token = linkToken(mail.textBody, '/verify');
     expect(token.length).toBeGreaterThanOrEqual(43); // 32 random bytes in base64url: 256 bits
@@ -45,10 +45,12 @@ describe('sign up', () => {
     // 48 hours, give or take the test's own time
     expect(rows[0].expiresAt.getTime() - rows[0].createdAt.getTime()).toBeCloseTo(48 * 3600_000, -4);
 
-    const before = await (await call('GET', '/api/auth/me', { cookie })).json();
-    expect(before.user.emailVerified).toBe(false);
-    expect((await call('POST', '/api/auth/verify', { body: { token } })).status).toBe(200);
-    const after = await (await call('GET', '/api/auth/me', { cookie })).json();
+    expect(user.emailVerifiedAt).toBeNull();
+    const verified = await call('POST', '/api/auth/verify', { body: { token } });
+    expect(verified.status).toBe(200);
+    expect(verified.headers.get('set-cookie')).toMatch(/HttpOnly/i);
+    expect(verified.headers.get('set-cookie')).toMatch(/SameSite=Lax/i);
+    const after = await (await call('GET', '/api/auth/me', { cookie: cookieOf(verified) })).json();
     expect(after.user.emailVerified).toBe(true);
     const again = await call('POST', '/api/auth/verify', { body: { token } });
     expect(again.status).toBe(410);
@@ -64,10 +66,20 @@ describe('sign up', () => {
     expect((await res.json()).error.message).toMatch(/expired/);
   });
 
-  it('says the address has an account already, on the e-mail field', async () => {
-    const res = await call('POST', '/api/auth/signup', { body: { name: 'Copy', email: 'TOMAS@demo.wallpulse.test', password: 'a long enough password' } });
-    expect(res.status).toBe(409);
-    expect((await res.json()).error.fields.email).toMatch(/already exists/);
+  it('answers an address that has an account exactly as a new one, and mails its owner instead', async () => {
+    const owner = await makeUser();
+    const fresh = `fresh-${uid()}@example.test`;
+    const known = await call('POST', '/api/auth/signup', { body: { name: 'Copy', email: owner.email.toUpperCase(), password: 'a long enough password' } });
+    const unknown = await call('POST', '/api/auth/signup', { body: { name: 'Copy', email: fresh, password: 'a long enough password' } });
+    expect(known.status).toBe(unknown.status);
+    const [a, b] = [await known.json(), await unknown.json()];
+    expect(a.message.replace(owner.email, 'ADDRESS')).toBe(b.message.replace(fresh, 'ADDRESS'));
+    expect(known.headers.get('set-cookie')).toBeNull();
+    const mail = await lastMailTo(owner.email);
+    expect(mail.subject).toMatch(/tried to create a Wallpulse account/);
+    expect(mail.textBody).toMatch(/\/signin/);
+    const rows = await testDb().select().from(users).where(eq(users.email, owner.email));
+    expect(rows).toHaveLength(1);
   });
 });
 

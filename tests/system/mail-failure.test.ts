@@ -2,7 +2,7 @@
 // built app on the same test database, pointed at an SMTP port nobody listens on
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { and, desc, eq, like } from 'drizzle-orm';
-import { closeTestDb, sessionFor, testDb, SESSION_COOKIE } from '../support/db';
+import { closeTestDb, lastMailTo, sessionFor, testDb, SESSION_COOKIE } from '../support/db';
 import { invitations, outboundMail, smtpInbox, users } from '../../src/lib/server/db/schema';
 import { startApp, type AppProcess } from '../../src/stack/app';
 import { freePort } from '../../src/stack/util';
@@ -106,41 +106,37 @@ describe('inviting while the mail server does not answer', () => {
   });
 });
 
-describe('signing up while the mail server does not answer', () => {
-  it('keeps the account, signs it in, and reports verificationSent: false', async () => {
+// sign-up and reset put their mail in the queue and answer at once; whichever app instance's
+// worker can reach a mail server sends it (here the test stack's own instance)
+describe('signing up while this instance’s mail server does not answer', () => {
+  it('answers 202 as usual, keeps the account unconfirmed, and the queued link still arrives', async () => {
     const email = `down-signup-${uid()}@example.test`;
     const res = await callDown('POST', '/api/auth/signup', { body: { name: 'Ilse Varga', email, password: 'a long enough password' } });
-    expect(res.status).toBe(201);
+    expect(res.status).toBe(202);
     const body = await res.json();
-    expect(body.verificationSent).toBe(false);
-    expect(body.user).toMatchObject({ name: 'Ilse Varga', email, emailVerified: false });
+    expect(body).toEqual({ sent: true, message: expect.stringContaining(email) });
 
     const [user] = await testDb().select().from(users).where(eq(users.email, email));
-    expect(user.id).toBe(body.user.id);
     expect(user.emailVerifiedAt).toBeNull();
 
-    const cookie = (res.headers.get('set-cookie') ?? '').split(';')[0];
-    const me = await (await callDown('GET', '/api/auth/me', { cookie })).json();
-    expect(me.user.email).toBe(email);
-
+    await lastMailTo(email, 30_000);
     const mail = await outboundTo(email);
-    expect(mail.map((m) => [m.purpose, m.status])).toEqual([['verify', 'failed']]);
-    expect(await inboxFor(email)).toEqual([]);
+    expect(mail.map((m) => [m.purpose, m.status])).toEqual([['verify', 'sent']]);
   });
 });
 
-describe('asking for a password reset while the mail server does not answer', () => {
-  it('answers exactly as for an unknown address, so the answer never tells who has an account, and logs the failed mail', async () => {
+describe('asking for a password reset while this instance’s mail server does not answer', () => {
+  it('answers exactly as for an unknown address, and the queued link still arrives', async () => {
     const { email } = await makeUser();
     const res = await callDown('POST', '/api/auth/reset-request', { body: { email } });
     expect(res.status).toBe(202);
     expect(await res.json()).toEqual({ sent: true, message: 'If an account uses this address, a reset link is on its way. It lasts 1 hour.' });
+    await lastMailTo(email, 30_000);
     const mail = await outboundTo(email);
-    expect(mail.map((m) => [m.purpose, m.status])).toEqual([['reset', 'failed']]);
-    expect(await inboxFor(email)).toEqual([]);
+    expect(mail.map((m) => [m.purpose, m.status])).toEqual([['reset', 'sent']]);
   });
 
-  it('answers 202 as usual for an address without an account, and tries no mail at all', async () => {
+  it('answers 202 as usual for an address without an account, and queues no mail at all', async () => {
     const email = `down-nobody-${uid()}@example.test`;
     const res = await callDown('POST', '/api/auth/reset-request', { body: { email } });
     expect(res.status).toBe(202);

@@ -3,6 +3,7 @@
 // units the engine uses (m, W/(m·K), kg/m³, J/(kg·K), s, °C); the UI shows mm and hours.
 // toModel() turns a document into the engine's model.
 import { z } from 'zod';
+import './jitless';
 import type { ModelInput, SignalData } from './model';
 
 export const MATERIAL_CLASSES = ['masonry', 'concrete', 'timber', 'insulation', 'board', 'metal', 'membrane', 'air', 'render'] as const;
