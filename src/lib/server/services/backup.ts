@@ -18,6 +18,7 @@ import {
 } from '../../schemas/backup';
 import { MAX_JSON_DEPTH, fieldErrors, jsonDepth } from '../http';
 import { audit } from '../audit';
+import { checkPacked } from './runs';
 
 /** a failure answered as the one JSON error shape */
 export interface BackupProblem {
@@ -318,6 +319,11 @@ function crossCheck(b: JobBackup): Record<string, string> {
           else if (value !== null && isDateColumn(type) && (typeof value !== 'string' || Number.isNaN(Date.parse(value)))) add(`${path}.columns.${name}`, 'must be a date and time (ISO 8601)');
           else if (value !== null && /int|double|float|decimal/i.test(type) && typeof value !== 'number') add(`${path}.columns.${name}`, 'must be a number');
           else if (typeof value === 'string') mapUploadRefsInText(value, uploadRef(`${path}.columns.${name}`));
+          // a kept run's packed series is read back by the Report and the Shared view: it must be one
+          if (name === 'packed' && value !== null && typeof value === 'object') {
+            const unreadable = checkPacked(Buffer.from(value.$base64, 'base64'));
+            if (unreadable) add(`${path}.columns.${name}`, unreadable.replace(/^The packed run/, 'holds a packed run that').replace(/ Keep it without its series\.$/, ''));
+          }
         }
         for (const [name, column] of columns) {
           if (!(name in run.columns) && column.notNull && !column.hasDefault) add(`${path}.columns.${name}`, 'is required');
