@@ -12,6 +12,8 @@ export const BODY_LIMITS = [
   ['POST', /^\/api\/assemblies\/[^/]+\/revisions\/?$/, 2 * MB, 'a revision'],
   // a materials CSV (the text itself is limited to 1 MB)
   ['POST', /^\/api\/materials\/import\/?$/, 2 * MB, 'a materials CSV import'],
+  // a job backup file restored into a team (MAX_BACKUP_BYTES of src/lib/schemas/backup.ts)
+  ['POST', /^\/api\/teams\/[^/]+\/import\/?$/, 16 * MB, 'a job backup file'],
 ];
 
 /** every other body: forms, sign-in and the other JSON endpoints */

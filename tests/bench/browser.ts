@@ -23,7 +23,7 @@ async function freePort(): Promise<number> {
 }
 
 /** an app of our own when none is given: `npm start` on free ports in .data/bench */
-async function startApp(): Promise<{ stop(): Promise<void> }> {
+export async function startApp(): Promise<{ stop(): Promise<void> }> {
   const [appPort, dbPort, smtpPort] = [await freePort(), await freePort(), await freePort()];
   const dataDir = path.resolve('.data/bench');
   rmSync(dataDir, { recursive: true, force: true });

@@ -1,8 +1,9 @@
 // `npm run bench`: runs every benchmark group and prints one table with the targets.
 // a browser benchmark can be added as tests/bench/browser.ts returning BenchRow[] and listed here.
 import { engineBench, type BenchRow } from './engine.ts';
-import { browserBench } from './browser.ts';
+import { browserBench, startApp } from './browser.ts';
 import { documentBench } from './document.ts';
+import { loadBench, LOAD_GROUP } from './load.ts';
 
 function format(v: number, unit: string): string {
   if (unit === 'node-steps/s') return `${(v / 1e6).toFixed(1)} M node-steps/s`;
@@ -32,14 +33,33 @@ export function printTable(rows: BenchRow[]): boolean {
 
 const started = performance.now();
 const rows: BenchRow[] = [...engineBench(), ...documentBench()];
-// the browser section needs chromium and an app (given by WALLPULSE_BASE_URL + DATABASE_URL, else started here); BENCH_BROWSER=0 skips it
-if (process.env.BENCH_BROWSER !== '0') {
-  try {
-    rows.push(...(await browserBench()));
-  } catch (e) {
-    console.error(`browser benchmark failed: ${e instanceof Error ? e.message : String(e)}`);
-    rows.push({ group: 'browser (headless Chromium)', name: 'browser benchmark ran', value: 0, unit: 'count', target: 'runs', met: false });
+// the browser and load sections need an app (given by WALLPULSE_BASE_URL + DATABASE_URL, else one started here
+// on free ports and stopped at the end); BENCH_BROWSER=0 and BENCH_LOAD=0 skip them
+const wantBrowser = process.env.BENCH_BROWSER !== '0';
+const wantLoad = process.env.BENCH_LOAD !== '0';
+let app: { stop(): Promise<void> } | null = null;
+try {
+  if ((wantBrowser || wantLoad) && !(process.env.WALLPULSE_BASE_URL && process.env.DATABASE_URL)) app = await startApp();
+  if (wantBrowser) {
+    try {
+      rows.push(...(await browserBench()));
+    } catch (e) {
+      console.error(`browser benchmark failed: ${e instanceof Error ? e.message : String(e)}`);
+      rows.push({ group: 'browser (headless Chromium)', name: 'browser benchmark ran', value: 0, unit: 'count', target: 'runs', met: false });
+    }
   }
+  if (wantLoad) {
+    try {
+      rows.push(...(await loadBench()));
+    } catch (e) {
+      console.error(`load benchmark failed: ${e instanceof Error ? e.message : String(e)}`);
+      rows.push({ group: LOAD_GROUP, name: 'load benchmark ran', value: 0, unit: 'count', target: 'runs', met: false });
+    }
+  }
+} catch (e) {
+  console.error(`could not start the app for the browser and load benchmarks: ${e instanceof Error ? e.message : String(e)}`);
+} finally {
+  await app?.stop();
 }
 const allMet = printTable(rows);
 console.log(`\n${allMet ? 'all targets met' : 'some targets NOT met'} (bench took ${((performance.now() - started) / 1000).toFixed(1)} s)`);

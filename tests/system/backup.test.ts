@@ -7,6 +7,9 @@ import { closeTestDb, testDb } from '../support/db';
 import { baseUrl } from '../support/browser';
 import { DEMO, call, demoTeamId, ensureMember, makeTeam, makeUser, smallDocument, uid } from './teamFixtures';
 import { MAX_BACKUP_BYTES } from '../../src/lib/schemas/backup';
+import { packRun, toBase64 } from '../../src/lib/workbench/keptRun';
+import { runDocument, type RunDone } from '../../src/lib/workbench/runDocument';
+import { summaryOf } from '../../src/lib/workbench/figures';
 import { sessionFor, SESSION_COOKIE } from '../support/db';
 
 const TABLES = ['jobs', 'assemblies', 'revisions', 'revision_events', 'runs', 'comments', 'uploads', 'share_links', 'audit_log'] as const;
@@ -84,10 +87,13 @@ beforeAll(async () => {
     await ok(await call('POST', `/api/revisions/${saved.id}/transitions`, { userId: who, body: { to, note: `to ${to}` } }));
   }
   await ok(await call('POST', `/api/revisions/${saved.id}/comments`, { userId: DEMO.checker, body: { body: 'Brick λ 0.77 W/(m·K) is a typical value; confirm with the survey.' } }));
+  // a run kept with its series, packed as the browser packs it (the same wall under the default sine day)
+  const kept = runDocument(smallDocument(0.215)) as RunDone;
+  if (kept.kind !== 'done') throw new Error('the test wall does not run');
   await ok(
     await call('POST', `/api/revisions/${saved.id}/runs`, {
       userId: DEMO.engineer,
-      body: { exposure: doc.exposure, summary: { uValue: 1.915, decrementFactor: 0.41, timeLag: 7.25, note: 'series run' }, series: { time: [0, 900, 1800], inside: [20.1, 20.15, 20.2] } },
+      body: { exposure: doc.exposure, summary: summaryOf(kept.figures), packed: toBase64(packRun(kept)) },
     }),
   );
   const roofHead = (await ok(await call('GET', `/api/assemblies/${roof.id}`, { userId: DEMO.admin }), 200)).head;
@@ -116,6 +122,9 @@ describe('exporting a job', () => {
     const run = wall.revisions[1].runs[0];
     expect(Object.keys(run.columns)).toEqual(expect.arrayContaining(['exposure', 'summary', 'created_at']));
     expect(JSON.parse(run.columns.exposure).outdoor.uploadId).toBe(1);
+    // binary columns as base64 (the kept run's packed series)
+    expect(run.columns.packed).toEqual({ $base64: expect.stringMatching(/^[A-Za-z0-9+/]+={0,2}$/) });
+    expect(Buffer.from(run.columns.packed.$base64, 'base64').subarray(0, 4).toString('latin1')).toBe('WPR1');
     expect(roof.revisions[0].runs).toHaveLength(1);
     expect(roof.revisions[0].comments[0].body).toBe('Roof first pass.');
     expect(file.people.map((p: { name: string }) => p.name).sort()).toEqual(['Ingrid Solberg', 'Noor Haddad', 'Tomas Reyes']);
@@ -219,6 +228,7 @@ describe('a bad or foreign backup file', () => {
     ['malformed JSON', () => JSON.stringify(good).slice(0, 500), 400, 'bad_json', /not valid JSON/],
     ['another program’s file', () => JSON.stringify({ type: 'FeatureCollection', features: [] }), 422, 'not_a_backup', /not a Wallpulse job backup/, 'format'],
     ['a later format version', () => edited((f) => (f.version = 2)), 422, 'unsupported_version', /format version 2; this Wallpulse restores version 1/, 'version'],
+    ['a file nested 10,000 levels deep', () => `{"format":"wallpulse-job-backup","version":1,"job":${'['.repeat(10_000)}${']'.repeat(10_000)}}`, 422, 'too_deep', /deeper than 32 levels/],
     ['the wrong shape (an assembly without a name)', () => edited((f) => delete f.assemblies[0].name), 422, 'invalid', /assembly 1: name is required/, 'assemblies[0].name'],
     [
       'a document that fails the schema (a negative thickness)',
@@ -229,6 +239,7 @@ describe('a bad or foreign backup file', () => {
       'assemblies[0].revisions[1].model.layers[0].thickness',
     ],
     ['a document naming an upload the file lacks', () => edited((f) => (f.uploads = [])), 422, 'invalid', /assembly 1, revision 2, exposure, outdoor: upload id names the upload 1, which is not in the file's uploads/],
+    ['a kept run whose packed series is not one', () => edited((f) => (f.assemblies[0].revisions[1].runs[0].columns.packed = { $base64: Buffer.from('not a packed run').toString('base64') })), 422, 'invalid', /assembly 1, revision 2, run 1: packed holds a packed run that cannot be read/],
     ['a run column this version does not keep', () => edited((f) => (f.assemblies[1].revisions[0].runs[0].columns.colour = 'red')), 422, 'invalid', /assembly 2, revision 1, run 1: colour is not a column of a run/],
     ['a revision on top of one that is not there', () => edited((f) => (f.assemblies[0].revisions[1].parentNumber = 9)), 422, 'invalid', /assembly 1, revision 2: parent number must name an earlier revision/],
     // passes every check but the database's: the last row of the file fails, so the rows written before it must go too

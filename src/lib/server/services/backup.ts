@@ -16,8 +16,9 @@ import {
   type JobBackup,
   type RestoreResult,
 } from '../../schemas/backup';
-import { fieldErrors } from '../http';
+import { MAX_JSON_DEPTH, fieldErrors, jsonDepth } from '../http';
 import { audit } from '../audit';
+import { checkPacked } from './runs';
 
 /** a failure answered as the one JSON error shape */
 export interface BackupProblem {
@@ -239,6 +240,9 @@ function firstProblem(fields: Record<string, string>): string {
 
 /** parse and check a whole backup file; nothing is written here */
 export function parseBackup(text: string): { ok: true; backup: JobBackup } | BackupProblem {
+  if (jsonDepth(text, MAX_JSON_DEPTH) > MAX_JSON_DEPTH) {
+    return problem(422, 'too_deep', `The file nests lists and objects deeper than ${MAX_JSON_DEPTH} levels; a Wallpulse job backup needs about 12; ${NOTHING}.`);
+  }
   let raw: unknown;
   try {
     raw = JSON.parse(text);
@@ -315,6 +319,11 @@ function crossCheck(b: JobBackup): Record<string, string> {
           else if (value !== null && isDateColumn(type) && (typeof value !== 'string' || Number.isNaN(Date.parse(value)))) add(`${path}.columns.${name}`, 'must be a date and time (ISO 8601)');
           else if (value !== null && /int|double|float|decimal/i.test(type) && typeof value !== 'number') add(`${path}.columns.${name}`, 'must be a number');
           else if (typeof value === 'string') mapUploadRefsInText(value, uploadRef(`${path}.columns.${name}`));
+          // a kept run's packed series is read back by the Report and the Shared view: it must be one
+          if (name === 'packed' && value !== null && typeof value === 'object') {
+            const unreadable = checkPacked(Buffer.from(value.$base64, 'base64'));
+            if (unreadable) add(`${path}.columns.${name}`, unreadable.replace(/^The packed run/, 'holds a packed run that').replace(/ Keep it without its series\.$/, ''));
+          }
         }
         for (const [name, column] of columns) {
           if (!(name in run.columns) && column.notNull && !column.hasDefault) add(`${path}.columns.${name}`, 'is required');
