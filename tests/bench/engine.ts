@@ -1,6 +1,6 @@
 // engine benchmark: throughput, a year of hourly weather, a bare thomas loop and explicit stepping to compare.
 // returns rows for run.ts to print; a browser benchmark can sit beside this file and add its own rows.
-import { buildMesh, simulate, type Layer, type Model } from '../../src/lib/thermal/index.ts';
+import { buildMesh, simulate, simulateBatch, type Layer, type Model } from '../../src/lib/thermal/index.ts';
 import { outsideBoundary, insideBoundary } from '../../src/lib/thermal/boundary.ts';
 import { assembleTheta } from '../../src/lib/thermal/operator.ts';
 import { factorise } from '../../src/lib/thermal/stepper.ts';
@@ -267,5 +267,96 @@ export function engineBench(): BenchRow[] {
   rows.push({ group: 'explicit', name: `forward euler at its limit, dt ${fe.dt.toFixed(3)} s, ${fe.steps} steps`, value: feMs, unit: 'ms' });
   rows.push({ group: 'explicit', name: `  its max inside-flux error / flux amplitude`, value: feErr, unit: '', target: '< 0.01', met: feErr < 0.01 });
   rows.push({ group: 'explicit', name: 'explicit time / crank-nicolson time', value: feMs / cnMs, unit: '×', target: '≥ 50', met: feMs / cnMs >= 50 });
+  rows.push(...batchBench(), ...periodicStartBench());
+  return rows;
+}
+
+// the heavy demo wall of issue 9: render, 120 mm stone wool, 215 mm brick, 150 mm dense concrete, plaster
+// (typical handbook values, ISO 10456 / CIBSE Guide A, from memory); about 590 kJ/m²K
+const heavyDemo: Layer[] = [
+  { name: 'Cement-sand render', thickness: 0.02, conductivity: 1.0, density: 1800, specificHeat: 1000 },
+  { name: 'Stone wool slab', thickness: 0.12, conductivity: 0.036, density: 100, specificHeat: 1030 },
+  { name: 'Clay brick', thickness: 0.215, conductivity: 0.77, density: 1700, specificHeat: 800 },
+  { name: 'Dense concrete', thickness: 0.15, conductivity: 2.0, density: 2400, specificHeat: 1000 },
+  { name: 'Gypsum plaster', thickness: 0.013, conductivity: 0.4, density: 1000, specificHeat: 1000 },
+];
+const clearDay = Array.from({ length: 144 }, (_, i) => Math.max(0, 600 * Math.sin((Math.PI * (i * 600 - 6 * 3600)) / (12 * 3600))));
+
+/** the batched engine at K = 4 against the single-model engine on the same four models, node-steps per second */
+export function batchBench(): BenchRow[] {
+  // four variants of the heavy wall as a sensitivity study makes them (layer thicknesses ±10 %), a 30-day sine run
+  const variant = (f: number, j: number): Model => ({
+    layers: heavyDemo.map((l, i) => (i === j ? { ...l, thickness: l.thickness * f } : l)),
+    outside: { surfaceResistance: 0.04, air: { kind: 'sine', mean: 8, amplitude: 7, period: 86400, peakTime: 54000 } },
+    inside: { surfaceResistance: 0.13, air: { kind: 'constant', value: 20 } },
+    initial: { kind: 'periodic' },
+    duration: 30 * 86400,
+    timeStep: 300,
+    outputInterval: 3600,
+  });
+  const models = [variant(1.1, 2), variant(0.9, 2), variant(1.1, 3), variant(0.9, 3)];
+  const nodeSteps = models.reduce((a, m) => a + (buildMesh(m.layers, m.mesh).cells + 1) * (m.duration / m.timeStep), 0);
+  const options = { storeProfiles: false };
+  for (const m of models) simulate(m, options); // warm the jit
+  simulateBatch(models, options);
+  // cpu time of this process rather than wall time: the machine is shared, and a time slice lost to another
+  // process is no property of either engine. the two alternate, best of 9
+  const cpu = (f: () => void): number => {
+    const s = process.cpuUsage();
+    f();
+    const d = process.cpuUsage(s);
+    return (d.user + d.system) / 1000;
+  };
+  let single = Infinity;
+  let batched = Infinity;
+  for (let rep = 0; rep < 9; rep++) {
+    single = Math.min(single, cpu(() => models.forEach((m) => simulate(m, options))));
+    batched = Math.min(batched, cpu(() => simulateBatch(models, options)));
+  }
+  const ratio = single / batched;
+  return [
+    { group: 'batched engine', name: 'single-model engine, 4 heavy-wall variants × 30 days (cpu time)', value: nodeSteps / (single / 1000), unit: 'node-steps/s' },
+    { group: 'batched engine', name: 'simulateBatch, K = 4 interleaved, same models (cpu time)', value: nodeSteps / (batched / 1000), unit: 'node-steps/s' },
+    { group: 'batched engine', name: 'batched / single throughput', value: ratio, unit: '×', target: '≥ 2.5', met: ratio >= 2.5 },
+  ];
+}
+
+/** the periodic start of the heavy wall in periods' worth of its own stepping (stats.periodicStart.costPeriods) */
+export function periodicStartBench(): BenchRow[] {
+  const rows: BenchRow[] = [];
+  const cases: Array<[string, Model['outside']]> = [
+    ['sine day', { surfaceResistance: 0.04, air: { kind: 'sine', mean: 8, amplitude: 7, period: 86400, peakTime: 54000 } }],
+    [
+      'sol-air day (600 s sun)',
+      {
+        surfaceResistance: 0.04,
+        air: { kind: 'sine', mean: 8, amplitude: 7, period: 86400, peakTime: 54000 },
+        solar: { absorptance: 0.6, irradiance: { kind: 'series', step: 600, values: clearDay, repeat: true } },
+      },
+    ],
+  ];
+  for (const [label, outside] of cases) {
+    const model: Model = {
+      layers: heavyDemo,
+      outside,
+      inside: { surfaceResistance: 0.13, air: { kind: 'constant', value: 20 } },
+      initial: { kind: 'periodic' },
+      duration: 3 * 86400,
+      timeStep: 300,
+      outputInterval: 3600,
+    };
+    let startMs = Infinity;
+    let periodMs = Infinity;
+    let solves = 0;
+    for (let rep = 0; rep < 15; rep++) {
+      const p = simulate(model, { storeProfiles: false }).stats.periodicStart!;
+      startMs = Math.min(startMs, p.elapsedMs);
+      if (p.costPeriods > 0) periodMs = Math.min(periodMs, p.elapsedMs / p.costPeriods);
+      solves = p.solves;
+    }
+    const cost = startMs / periodMs;
+    rows.push({ group: 'periodic start', name: `heavy wall, ${label}: complex solves`, value: solves, unit: 'count' });
+    rows.push({ group: 'periodic start', name: `heavy wall, ${label}: cost in periods of stepping`, value: cost, unit: '×', target: '< 3', met: cost < 3 });
+  }
   return rows;
 }

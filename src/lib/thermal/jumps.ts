@@ -7,6 +7,7 @@
 //   - it is concentrated: more than JUMP_CONCENTRATION of the variation over [t − dt/2, t + dt] happens
 //     within [t, t + dt/2], so a ramp over a whole step (0.5), a sine, or an hourly series at hourly steps is none, so a ramp over a whole step, a sine, or an hourly series at hourly steps is none;
 //   - and it is large: the variation within that half step is over JUMP_MIN_CHANGE kelvin.
+// it is placed at the piece where it starts (a piece at least as steep as the half step ahead on average).
 // only series finer than the step can change faster than the step; constants, sines and series at least one step
 // apart are resolved by construction and are evaluated only as part of the combined drive.
 import { drivingTemperature, type BoundarySide } from './boundary.ts';
@@ -71,6 +72,8 @@ export function sideJumps(side: BoundarySide, duration: number, dt: number): num
     const at = prefix[j];
     const short = cumulative(t + dt / 2, mid) - at;
     if (short <= JUMP_MIN_CHANGE) continue;
+    // the change must start here: this piece at least as steep as the half step ahead on average
+    if ((prefix[j + 1] - at) * (dt / 2) < short * (tau[j + 1] - t)) continue;
     const long = cumulative(t + dt, hi) - cumulative(t - dt / 2, lo);
     if (short > JUMP_CONCENTRATION * long) out.push(t);
   }

@@ -172,3 +172,75 @@ export function periodicState(
   for (let i = 0; i < n; i++) out[i] /= N;
   return { period, samples: N, stepSize, solves };
 }
+
+/**
+ * the correction for a period whose stepping is not time-invariant (restart sub-steps after jumps inside it).
+ * with Φ the one-period map of the actual stepping, the periodic state is x* = x0 + (I − Φ)⁻¹ (x1 − x0), where x1
+ * is x0 stepped through one period. (I − Φ)⁻¹ is taken from the time-invariant scheme, which differs from the
+ * actual one only in the few sub-stepped steps: the periodic response to a kick r added once per period,
+ * δ = x_1 of  M x_{n+1} = E x_n + [n ≡ 0] M r,  i.e. δ = (1/N) Σ_k z_k X_k with (z_k M − E) X_k = M r.
+ * writes δ into out.
+ */
+export function periodicKick(matrices: ThetaMatrices, samples: number, r: Float64Array, out: Float64Array): number {
+  const N = samples;
+  const n = r.length;
+  const ml = matrices.implicit.lower;
+  const md = matrices.implicit.diag;
+  const mu = matrices.implicit.upper;
+  const el = matrices.explicit.lower;
+  const ed = matrices.explicit.diag;
+  const eu = matrices.explicit.upper;
+  const rhs = new Float64Array(n); // M r
+  for (let i = 0; i < n; i++) {
+    rhs[i] = md[i] * r[i] + (i > 0 ? ml[i] * r[i - 1] : 0) + (i < n - 1 ? mu[i] * r[i + 1] : 0);
+  }
+  const cpr = new Float64Array(n);
+  const cpi = new Float64Array(n);
+  const dpr = new Float64Array(n);
+  const dpi = new Float64Array(n);
+  out.fill(0);
+  const half = Math.floor(N / 2);
+  for (let k = 0; k <= half; k++) {
+    const angle = (2 * Math.PI * k) / N;
+    const c = Math.cos(angle);
+    const s = Math.sin(angle);
+    let pcr = 0;
+    let pci = 0;
+    let pdr = 0;
+    let pdi = 0;
+    for (let i = 0; i < n; i++) {
+      const lr = c * ml[i] - el[i];
+      const li = s * ml[i];
+      const dr = c * md[i] - ed[i] - (lr * pcr - li * pci);
+      const di = s * md[i] - (lr * pci + li * pcr);
+      const q = 1 / (dr * dr + di * di);
+      const ir = dr * q;
+      const ii = -di * q;
+      const ur = i === n - 1 ? 0 : c * mu[i] - eu[i];
+      const ui = i === n - 1 ? 0 : s * mu[i];
+      pcr = ur * ir - ui * ii;
+      pci = ur * ii + ui * ir;
+      const rr = rhs[i] - (lr * pdr - li * pdi);
+      const ri = -(lr * pdi + li * pdr);
+      pdr = rr * ir - ri * ii;
+      pdi = rr * ii + ri * ir;
+      cpr[i] = pcr;
+      cpi[i] = pci;
+      dpr[i] = pdr;
+      dpi[i] = pdi;
+    }
+    const weight = k === 0 || 2 * k === N ? 1 : 2;
+    let xr = dpr[n - 1];
+    let xi = dpi[n - 1];
+    out[n - 1] += weight * (c * xr - s * xi);
+    for (let i = n - 2; i >= 0; i--) {
+      const nr = dpr[i] - (cpr[i] * xr - cpi[i] * xi);
+      const ni = dpi[i] - (cpr[i] * xi + cpi[i] * xr);
+      xr = nr;
+      xi = ni;
+      out[i] += weight * (c * xr - s * xi);
+    }
+  }
+  for (let i = 0; i < n; i++) out[i] /= N;
+  return half + 1;
+}

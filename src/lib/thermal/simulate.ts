@@ -5,7 +5,7 @@ import { drivingRate, drivingTemperature, insideBoundary, outsideBoundary, type 
 import { buildMesh, type Mesh } from './mesh.ts';
 import { assembleTheta, boundaryTerm, type ThetaMatrices } from './operator.ts';
 import { jumpSteps } from './jumps.ts';
-import { periodicState, periodSampling } from './periodicStart.ts';
+import { periodicKick, periodicState, periodSampling } from './periodicStart.ts';
 import { commonPeriod, signalAt } from './signals.ts';
 import { steadyProfile } from './steady.ts';
 import { factorise, thetaStep, type ThomasFactor } from './stepper.ts';
@@ -100,24 +100,24 @@ export interface RunState {
   tn: number;
 }
 
-/** first half of a step to tTo: drives, boundary terms and the surface temperatures before it */
-export function beginStep(st: RunState, s: Stepping, tTo: number): void {
-  const T = st.temperature;
-  const last = T.length - 1;
+/** first half of a step to tTo: drives and boundary terms, given the surface temperatures before it */
+export function beginStepWith(st: RunState, s: Stepping, tTo: number, t0: number, t1: number, tm: number, tn: number): void {
   st.oAfter = drivingTemperature(st.outside, tTo);
   st.iAfter = drivingTemperature(st.inside, tTo);
   st.b0 = boundaryTerm(st.outside, s.theta, st.outsideDrive, st.oAfter);
   st.bN = boundaryTerm(st.inside, s.theta, st.insideDrive, st.iAfter);
-  st.t0 = T[0];
-  st.t1 = T[1];
-  st.tm = T[last - 1];
-  st.tn = T[last];
+  st.t0 = t0;
+  st.t1 = t1;
+  st.tm = tm;
+  st.tn = tn;
 }
 
-/** second half of a step, after the solve: the θ-weighted surface fluxes from each surface node's own equation */
-export function endStep(st: RunState, s: Stepping): void {
-  const T = st.temperature;
-  const last = T.length - 1;
+/**
+ * second half of a step, after the solve, given the surface temperatures after it: the θ-weighted surface fluxes
+ * from each surface node's own energy equation, so the account closes to round-off
+ */
+export function endStepWith(st: RunState, s: Stepping, a0: number, a1: number, am: number, an: number): void {
+  const last = st.temperature.length - 1;
   const mesh = st.mesh;
   const out = st.outside;
   const ins = st.inside;
@@ -129,17 +129,16 @@ export function endStep(st: RunState, s: Stepping): void {
   const iAfter = st.iAfter;
   const t0 = st.t0;
   const tn = st.tn;
-  // surface fluxes from each surface node's own energy equation, so the account closes to round-off
   let qo: number;
   if (out.prescribed) {
     const g = mesh.conductance[0];
-    qo = (mesh.capacity[0] * (T[0] - t0)) / dt + g * (theta * (T[0] - T[1]) + (1 - theta) * (t0 - st.t1));
-  } else qo = out.h * (theta * (oAfter - T[0]) + (1 - theta) * (oBefore - t0));
+    qo = (mesh.capacity[0] * (a0 - t0)) / dt + g * (theta * (a0 - a1) + (1 - theta) * (t0 - st.t1));
+  } else qo = out.h * (theta * (oAfter - a0) + (1 - theta) * (oBefore - t0));
   let qi: number;
   if (ins.prescribed) {
     const g = mesh.conductance[last - 1];
-    qi = g * (theta * (T[last - 1] - T[last]) + (1 - theta) * (st.tm - tn)) - (mesh.capacity[last] * (T[last] - tn)) / dt;
-  } else qi = ins.h * (theta * (T[last] - iAfter) + (1 - theta) * (tn - iBefore));
+    qi = g * (theta * (am - an) + (1 - theta) * (st.tm - tn)) - (mesh.capacity[last] * (an - tn)) / dt;
+  } else qi = ins.h * (theta * (an - iAfter) + (1 - theta) * (tn - iBefore));
   st.inOutside += qo * dt;
   st.outInside += qi * dt;
   st.outsideDrive = oAfter;
@@ -148,9 +147,16 @@ export function endStep(st: RunState, s: Stepping): void {
 
 /** advances the state by one step of s to time tTo */
 export function advance(st: RunState, s: Stepping, tTo: number): void {
-  beginStep(st, s, tTo);
-  thetaStep(s.factor, s.matrices.explicit, st.temperature, st.b0, st.bN);
-  endStep(st, s);
+  const T = st.temperature;
+  const last = T.length - 1;
+  beginStepWith(st, s, tTo, T[0], T[1], T[last - 1], T[last]);
+  thetaStep(s.factor, s.matrices.explicit, T, st.b0, st.bN);
+  endStepWith(st, s, T[0], T[1], T[last - 1], T[last]);
+}
+
+/** the stepping a sub-step of kind `which` uses (0 main, 1 backward-euler quarter, 2 half) */
+export function substepping(set: StepSet, which: number): Stepping {
+  return which === 0 ? set.main : which === 1 ? (set.quarter as Stepping) : (set.half as Stepping);
 }
 
 /** a run set up and ready to step: everything simulate() and simulateBatch() share */
@@ -187,6 +193,28 @@ export interface Run {
   build: () => Omit<Result, 'energy' | 'stats'>;
 }
 
+/** a fresh state at t = 0 over the given temperatures */
+function runState(mesh: Mesh, outside: BoundarySide, inside: BoundarySide, T: Float64Array): RunState {
+  return {
+    mesh,
+    outside,
+    inside,
+    temperature: T,
+    outsideDrive: drivingTemperature(outside, 0),
+    insideDrive: drivingTemperature(inside, 0),
+    inOutside: 0,
+    outInside: 0,
+    oAfter: 0,
+    iAfter: 0,
+    b0: 0,
+    bN: 0,
+    t0: 0,
+    t1: 0,
+    tm: 0,
+    tn: 0,
+  };
+}
+
 /** the step plan: restarts at a uniform start and at every jump of the driving temperatures */
 function plan(
   model: Model,
@@ -197,11 +225,12 @@ function plan(
   duration: number,
   steps: number,
   restarts: boolean,
+  atStart = model.initial.kind === 'uniform',
 ): Uint8Array {
   const kinds = new Uint8Array(steps);
   if (!restarts || theta >= 1 || steps === 0) return kinds;
   const at = jumpSteps(outside, inside, duration, dt, steps);
-  if (model.initial.kind === 'uniform') at.unshift(0);
+  if (atStart) at.unshift(0);
   for (const n of at) {
     kinds[n] = STEP_RESTART;
     if (n + 1 < steps && kinds[n + 1] === STEP_FULL) kinds[n + 1] = STEP_RECOVER;
@@ -261,24 +290,7 @@ export function prepareRun(model: Model, options: SimulateOptions = {}): Run {
 
   // initial state
   const T = new Float64Array(nodes);
-  const st: RunState = {
-    mesh,
-    outside,
-    inside,
-    temperature: T,
-    outsideDrive: drivingTemperature(outside, 0),
-    insideDrive: drivingTemperature(inside, 0),
-    inOutside: 0,
-    outInside: 0,
-    oAfter: 0,
-    iAfter: 0,
-    b0: 0,
-    bN: 0,
-    t0: 0,
-    t1: 0,
-    tm: 0,
-    tn: 0,
-  };
+  const st = runState(mesh, outside, inside, T);
   let periodicStart: PeriodicStartStats | undefined;
   let periodicStartMs = 0;
   if (model.initial.kind === 'uniform') T.fill(model.initial.temperature);
@@ -411,9 +423,54 @@ function startPeriodic(
     return { period: 0, samples: 1, stepSize: dt, solves: 1, correctionPeriods: 0, elapsedMs: 0, costPeriods: 0 };
   }
   const P = common.period;
-  const { stepSize } = periodSampling(P, dt);
+  const { samples, stepSize } = periodSampling(P, dt);
   const info = periodicState(mesh, outside, inside, theta, P, dt, T, stepSize === dt ? full.main.matrices : undefined);
-  return { ...info, correctionPeriods: 0, elapsedMs: 0, costPeriods: 0 };
+  let correctionPeriods = 0;
+  let solves = info.solves;
+  if (stepSize === dt && full.quarter) {
+    // restarts inside the period make the stepping time-varying: the schedule of a period in the middle of a
+    // long run (jumps repeat with P), then one correction (periodicKick) from a period stepped with it
+    const kinds = plan(model, outside, inside, theta, dt, 2 * P, 2 * samples, true, false).subarray(samples);
+    if (kinds.some((k) => k !== STEP_FULL)) {
+      // residual of one period from x0, the kick correction, and the residual from the corrected state; the
+      // time-invariant (I − Φ)⁻¹ can misjudge stiff modes that the restarts damp, so keep whichever start repeats better
+      const n = T.length;
+      const onePeriod = (from: Float64Array): Float64Array => {
+        const st = runState(mesh, outside, inside, Float64Array.from(from));
+        for (let j = 0; j < samples; j++) stepWithKind(st, full, kinds[j], j * dt, (j + 1) * dt, dt);
+        return st.temperature;
+      };
+      const x1 = onePeriod(T);
+      const r = new Float64Array(n);
+      for (let i = 0; i < n; i++) r[i] = x1[i] - T[i];
+      const corrected = new Float64Array(n);
+      solves += periodicKick(full.main.matrices, samples, r, corrected);
+      for (let i = 0; i < n; i++) corrected[i] += T[i];
+      const x2 = onePeriod(corrected);
+      let before = 0;
+      let after = 0;
+      for (let i = 0; i < n; i++) {
+        before = Math.max(before, Math.abs(r[i]));
+        after = Math.max(after, Math.abs(x2[i] - corrected[i]));
+      }
+      T.set(after < before ? corrected : x1);
+      correctionPeriods = 2;
+    }
+  }
+  return { ...info, solves, correctionPeriods, elapsedMs: 0, costPeriods: 0 };
+}
+
+/** one step of the plan from tFrom to tTo (length h): the full step, or the restart sub-steps of its kind */
+export function stepWithKind(st: RunState, set: StepSet, kind: number, tFrom: number, tTo: number, h: number): void {
+  if (kind === STEP_FULL) {
+    advance(st, set.main, tTo);
+    return;
+  }
+  const subs = SUBSTEPS[kind];
+  for (let j = 0; j < subs.length; j++) {
+    const [which, f] = subs[j];
+    advance(st, substepping(set, which), f === 1 ? tTo : tFrom + f * h);
+  }
 }
 
 /** the tail of a run: energy account, stats and the Result */
@@ -457,6 +514,11 @@ export function finishRun(run: Run, steppingMs: number): Result {
 /** runs the model and returns the contract's Result */
 export function simulate(model: Model, options: SimulateOptions = {}): Result {
   const run = prepareRun(model, options);
+  return finishRun(run, stepRun(run, options));
+}
+
+/** steps a prepared run to its end, recording its outputs; returns the wall time of the stepping, ms */
+export function stepRun(run: Run, options: SimulateOptions = {}): number {
   const every = Math.max(1, Math.floor(options.progressEvery ?? 4096));
   const onProgress = options.onProgress;
   const shouldCancel = options.shouldCancel;
@@ -471,16 +533,7 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
     const tTo = isTail ? run.duration : (n + 1) * dt;
     const interior = run.nextOutput < run.outputs && run.nextOutput * run.interval < tTo - 1e-9 * Math.min(dt, run.interval);
     if (interior) previous.set(T);
-    const kind = kinds[n];
-    if (kind === STEP_FULL) advance(st, set.main, tTo);
-    else {
-      const subs = SUBSTEPS[kind];
-      for (let j = 0; j < subs.length; j++) {
-        const [which, f] = subs[j];
-        const s = which === 0 ? set.main : which === 1 ? (set.quarter as Stepping) : (set.half as Stepping);
-        advance(st, s, f === 1 ? tTo : tFrom + f * h);
-      }
-    }
+    stepWithKind(st, set, kinds[n], tFrom, tTo, h);
     if (run.nextOutput < run.outputs && run.nextOutput * run.interval <= tTo + 1e-9 * Math.min(dt, run.interval)) {
       run.recordWithin(tFrom, tTo);
     }
@@ -491,5 +544,5 @@ export function simulate(model: Model, options: SimulateOptions = {}): Result {
   }
   const steppingMs = now() - steppingStarted;
   if (onProgress) onProgress(1);
-  return finishRun(run, steppingMs);
+  return steppingMs;
 }

@@ -209,7 +209,7 @@ export interface PeriodicStartStats {
   stepSize: number;
   /** complex tridiagonal solves (harmonics with a non-negligible drive) */
   solves: number;
-  /** one period stepped for the restart correction (jumps inside the period), 0 or 1 */
+  /** periods stepped for the restart correction (jumps inside the period): 0 or 2 */
   correctionPeriods: number;
   /** wall time of the periodic start, ms */
   elapsedMs: number;
