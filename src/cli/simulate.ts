@@ -1,9 +1,16 @@
 // command line: validate a model with the shared schema, run it, print one JSON result.
-// exit 0 result on stdout; exit 2 invalid model (stdout empty, `path: message` lines on stderr);
-// exit 1 anything else, one line on stderr.
+// `--document doc.json [--upload file.csv]` runs a saved workbench document the way the workbench
+// does and prints { model, result, figures }.
+// exit 0 result on stdout; exit 2 invalid model or document (stdout empty, `path: message` lines on
+// stderr); exit 1 anything else, one line on stderr.
 import { readFileSync } from 'node:fs';
 import { parseModel } from '../lib/schemas/model.ts';
 import { simulate } from '../lib/thermal/index.ts';
+import { workbenchDocumentSchema, type UploadedSeries } from '../lib/schemas/workbench.ts';
+import { guessMapping, parseCsv, validateCsv } from '../lib/workbench/csv.ts';
+import { simulateDocument } from '../lib/workbench/runDocument.ts';
+import { documentOutput } from '../lib/workbench/documentOutput.ts';
+import { moistureFromDocument, moistureIssues } from '../lib/moisture/index.ts';
 
 class InvalidModel extends Error {
   constructor(readonly lines: string[]) {
@@ -11,7 +18,7 @@ class InvalidModel extends Error {
   }
 }
 
-const USAGE = 'usage: npm run --silent simulate -- <model.json | ->';
+const USAGE = 'usage: npm run --silent simulate -- <model.json | -> | --document <doc.json | -> [--upload <file.csv | ->]';
 
 function readInput(arg: string): string {
   try {
@@ -37,9 +44,65 @@ function toJson(result: unknown): string {
   return json;
 }
 
+/** the hourly series of a CSV file, read as the import screen reads it with its first guess of the columns */
+function readUpload(arg: string): UploadedSeries {
+  const csv = parseCsv(readInput(arg));
+  const checked = validateCsv(csv, guessMapping(csv));
+  if (!checked.ok || !checked.series) {
+    const lines = checked.problems.map((p) => `upload: line ${p.line}: ${p.message}`);
+    if (checked.moreProblems > 0) lines.push(`upload: ${checked.moreProblems} more problems`);
+    throw new InvalidModel(lines.length > 0 ? lines : ['upload: the file holds no hourly series']);
+  }
+  return checked.series;
+}
+
+function runDocumentMode(docArg: string, uploadArg: string | null): string {
+  if (docArg === '-' && uploadArg === '-') throw new Error('only one of --document and --upload can read standard input');
+  let input: unknown;
+  try {
+    input = JSON.parse(readInput(docArg));
+  } catch (e) {
+    if (e instanceof SyntaxError) throw new InvalidModel([`document: not valid JSON (${e.message})`]);
+    throw e;
+  }
+  // the document first, so a bad one is reported as such before the upload is asked for
+  const parsed = workbenchDocumentSchema.safeParse(input);
+  if (!parsed.success) throw new InvalidModel(parsed.error.issues.map((i) => `${formatDocPath(i.path)}: ${i.message}`));
+  const out = parsed.data.exposure.outdoor;
+  if (out.mode === 'series' && uploadArg === null) {
+    throw new InvalidModel([`exposure.outdoor.uploadId: the outdoor air is an uploaded series (upload ${out.uploadId}); give its hourly CSV file with --upload <file.csv>`]);
+  }
+  if (out.mode !== 'series' && uploadArg !== null) {
+    throw new InvalidModel([`exposure.outdoor.mode: is "${out.mode}", which takes no uploaded series; leave out --upload`]);
+  }
+  // a document with a climate needs every layer's μ for the moisture check
+  const moistureProblems = moistureIssues(parsed.data);
+  if (moistureProblems.length > 0) throw new InvalidModel(moistureProblems);
+  const upload = uploadArg !== null ? readUpload(uploadArg) : null;
+  const run = simulateDocument(parsed.data, upload);
+  if (run.kind === 'invalid') throw new InvalidModel(run.issues);
+  if (run.kind === 'cancelled') throw new Error('the run was cancelled');
+  const moisture = moistureFromDocument(parsed.data);
+  return toJson(documentOutput(run, moisture ? { moisture } : {}));
+}
+
+function formatDocPath(path: ReadonlyArray<PropertyKey>): string {
+  const p = path.map((k) => (typeof k === 'number' ? `[${k}]` : `.${String(k)}`)).join('').replace(/^\./, '');
+  return p === '' ? 'document' : p;
+}
+
 function run(argv: string[]): string {
   const args = argv.filter((a) => a !== '--');
-  if (args.length !== 1) throw new Error(USAGE);
+  const docAt = args.indexOf('--document');
+  if (docAt >= 0) {
+    const uploadAt = args.indexOf('--upload');
+    const docArg = args[docAt + 1];
+    const uploadArg = uploadAt >= 0 ? args[uploadAt + 1] : null;
+    const known = 2 + (uploadAt >= 0 ? 2 : 0);
+    if (!docArg || docArg === '--upload' || (uploadAt >= 0 && (!uploadArg || uploadArg === '--document')) || args.length !== known) throw new Error(USAGE);
+    return runDocumentMode(docArg, uploadArg);
+  }
+  if (args.length !== 1 || args[0].startsWith('--')) throw new Error(USAGE);
   const text = readInput(args[0]);
   let input: unknown;
   try {

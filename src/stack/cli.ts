@@ -185,6 +185,7 @@ async function test(): Promise<void> {
 
   if (filters.length === 0) {
     ok = step('type check: the thermal engine alone (ES2022, no DOM, no Node types)', 'npx', ['tsc', '-p', 'src/lib/thermal/tsconfig.json']) && ok;
+    ok = step('type check: the moisture check alone (ES2022, no DOM, no Node types)', 'npx', ['tsc', '-p', 'src/lib/moisture/tsconfig.json']) && ok;
     ok = step('type check: astro check', process.execPath, [path.join(root, 'node_modules/astro/astro.js'), 'check', '--minimumSeverity', 'warning']) && ok;
   }
   add(await vitest(['unit', 'integration'], env, path.join(dataDir, 'vitest-1.json'), filters));

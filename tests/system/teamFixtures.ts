@@ -43,7 +43,7 @@ export async function makeJob(teamId: number, name = `Job ${uid()}`): Promise<nu
 /** a small valid workbench document: one brick layer (typical values, from memory) */
 export function smallDocument(thickness = 0.2): WorkbenchDocument {
   return {
-    version: 1,
+    version: 2,
     layers: [
       { id: 'a', name: 'Brick', materialRef: null, materialClass: 'masonry', thickness, conductivity: 0.77, density: 1700, specificHeat: 800, vapourResistanceFactor: null, source: 'typical value (from memory)', note: '' },
     ],

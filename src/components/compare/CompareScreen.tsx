@@ -47,7 +47,7 @@ interface Source {
 /** the fields of an exposure set on this page: a daily sine applied to every alternative */
 interface CustomExposure {
   mean: string;
-  swing: string;
+  amplitude: string;
   peakHour: string;
   indoor: string;
   days: string;
@@ -55,7 +55,7 @@ interface CustomExposure {
 
 const CUSTOM_FIELDS: { key: keyof CustomExposure; label: string; unit: string; path: string }[] = [
   { key: 'mean', label: 'Daily mean', unit: '°C', path: 'outdoor.mean' },
-  { key: 'swing', label: 'Daily swing', unit: 'K', path: 'outdoor.swing' },
+  { key: 'amplitude', label: 'Daily amplitude', unit: 'K', path: 'outdoor.amplitude' },
   { key: 'peakHour', label: 'Hour of the peak', unit: 'h', path: 'outdoor.peakHour' },
   { key: 'indoor', label: 'Indoor air', unit: '°C', path: 'indoor.value' },
   { key: 'days', label: 'Days to report', unit: 'd', path: 'days' },
@@ -63,11 +63,11 @@ const CUSTOM_FIELDS: { key: keyof CustomExposure; label: string; unit: string; p
 
 function customFrom(e: Exposure): CustomExposure {
   const o = e.outdoor;
-  const d = defaultExposure();
-  const sine = o.mode === 'sine' || o.mode === 'solair' ? o : (d.outdoor as { mean: number; swing: number; peakHour: number });
+  const d = defaultExposure().outdoor as { mean: number; amplitude: number; peakHour: number };
+  const sine = o.mode === 'sine' || o.mode === 'solair' ? o : d;
   return {
     mean: String(sine.mean),
-    swing: String(sine.swing),
+    amplitude: String(sine.amplitude),
     peakHour: String(sine.peakHour),
     indoor: String(e.indoor.mode === 'constant' ? e.indoor.value : 24),
     days: String(e.days),
@@ -75,12 +75,12 @@ function customFrom(e: Exposure): CustomExposure {
 }
 
 /** the custom exposure, or the field messages (each naming the field and its unit) */
-function buildCustom(c: CustomExposure): { ok: true; exposure: Exposure } | { ok: false; fields: Record<string, string> } {
+function buildCustom(c: CustomExposure, from: Exposure): { ok: true; exposure: Exposure } | { ok: false; fields: Record<string, string> } {
   const n = (s: string) => (s.trim() === '' ? NaN : Number(s.replace(',', '.')));
-  const base = defaultExposure();
+  // the rest (surface resistances, step, mesh, humidity and climate) from the exposure it starts from
   const parsed = exposureSchema.safeParse({
-    ...base,
-    outdoor: { mode: 'sine', mean: n(c.mean), swing: n(c.swing), peakHour: n(c.peakHour) },
+    ...from,
+    outdoor: { mode: 'sine', mean: n(c.mean), amplitude: n(c.amplitude), peakHour: n(c.peakHour) },
     indoor: { mode: 'constant', value: n(c.indoor) },
     days: n(c.days),
   });
@@ -176,7 +176,8 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
 
   const picked = picks.map((id) => sources.get(id)).filter((s): s is Source => !!s);
   const from = exposureFrom === null ? (picked[0]?.revision.id ?? null) : exposureFrom;
-  const customBuilt = useMemo(() => buildCustom(custom), [custom]);
+  const customBase = useMemo(() => customBaseOf(sources, picked[0]?.revision.id), [sources, picked[0]?.revision.id]); // eslint-disable-line react-hooks/exhaustive-deps
+  const customBuilt = useMemo(() => buildCustom(custom, customBase), [custom, customBase]);
   const exposure: Exposure | null = useMemo(() => {
     if (from === 'custom') return customBuilt.ok ? customBuilt.exposure : null;
     return from !== null ? (sources.get(from)?.doc?.exposure ?? null) : null;
@@ -506,10 +507,15 @@ function describeExposure(e: Exposure): string {
     o.mode === 'series'
       ? `an uploaded hourly series (absorptance ${o.absorptance})`
       : o.mode === 'solair'
-        ? `a sol-air day: air ${o.mean} °C ± ${o.swing / 2} K peaking at ${o.peakHour} h, sun up to ${o.peakIrradiance} W/m² on the face (absorptance ${o.absorptance})`
-        : `a daily sine: ${o.mean} °C ± ${o.swing / 2} K peaking at ${o.peakHour} h`;
+        ? `a sol-air day: air ${o.mean} °C ± ${o.amplitude} K peaking at ${o.peakHour} h, sun on the face (absorptance ${o.absorptance})`
+        : `a daily sine: ${o.mean} °C ± ${o.amplitude} K peaking at ${o.peakHour} h`;
   const ind = e.indoor.mode === 'constant' ? `${e.indoor.value} °C indoors` : 'an indoor day schedule';
   return `Exposure for all: ${out}; ${ind}; R_se ${e.outsideSurfaceResistance}, R_si ${e.insideSurfaceResistance} m²K/W; ${e.days} reported ${e.days === 1 ? 'day' : 'days'}, step ${e.timeStep} s.`;
+}
+
+/** the exposure a custom one starts from: the first alternative's, else the default */
+function customBaseOf(sources: Map<number, Source>, id: number | undefined): Exposure {
+  return (id !== undefined ? sources.get(id)?.doc?.exposure : undefined) ?? defaultExposure();
 }
 
 /** the line at a glance: which alternative damps the swing most, reacts latest, loses least heat, and which reach the dew point */
@@ -525,7 +531,8 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
   const damp = pick((f) => f.decrementFactor, 1);
   const late = pick((f) => f.timeLag, -1);
   const least = pick((f) => f.heatLost, 1);
-  const risk = figures.map((f, i) => (f.belowDewPoint ? labels[i] : null)).filter(Boolean);
+  const assessed = figures.some((f) => f.moisture);
+  const risk = figures.map((f, i) => (f.moisture && (f.moisture.verdict !== 'none' || f.moisture.mouldRisk || f.moisture.condensationRisk) ? labels[i] : null)).filter(Boolean);
   const item = (title: string, i: number, value: string, testId: string) => (
     <div className="rounded border border-line bg-panel px-3 py-2" data-testid={testId} data-alt={i}>
       <dt className="text-xs font-semibold text-ink-soft">{title}</dt>
@@ -540,11 +547,11 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
     <dl className="grid gap-2 sm:grid-cols-2 lg:grid-cols-4" aria-label="At a glance" data-testid="glance">
       {item('Damps the swing most', damp, damp >= 0 ? `decrement factor ${fixed(figures[damp].decrementFactor, 3)}` : '', 'glance-damps')}
       {item('Reacts latest', late, late >= 0 ? `time lag ${fixed(figures[late].timeLag / 3600, 2)} h` : '', 'glance-latest')}
-      {item('Loses least heat', least, least >= 0 ? `${fixed(figures[least].heatLost, 1)} Wh/m² over ${fixed(figures[least].reportedDays, 0)} days` : '', 'glance-least-loss')}
-      <div className={`rounded border px-3 py-2 ${risk.length ? 'border-danger/40 bg-danger-soft' : 'border-line bg-panel'}`} data-testid="glance-dew">
-        <dt className="text-xs font-semibold text-ink-soft">Dew-point screening</dt>
-        <dd className="mt-0.5 font-semibold">{risk.length ? `${risk.join(', ')} ${risk.length === 1 ? 'reaches' : 'reach'} the dew point` : 'No interface reaches the dew point'}</dd>
-        <dd className="text-xs text-ink-soft">A screening only, not an ISO 13788 assessment.</dd>
+      {item('Loses least heat', least, least >= 0 ? `${fixed(figures[least].heatLost, 3)} kWh/m² over ${fixed(figures[least].reportedDays, 0)} days` : '', 'glance-least-loss')}
+      <div className={`rounded border px-3 py-2 ${risk.length ? 'border-danger/40 bg-danger-soft' : 'border-line bg-panel'}`} data-testid="glance-moisture">
+        <dt className="text-xs font-semibold text-ink-soft">Moisture risk (ISO 13788)</dt>
+        <dd className="mt-0.5 font-semibold">{!assessed ? 'Not assessed: no monthly climate' : risk.length ? `${risk.join(', ')}` : 'None of them'}</dd>
+        <dd className="text-xs text-ink-soft">{risk.length ? 'condensation or a surface risk; see the table' : 'A monthly method; local codes decide.'}</dd>
       </div>
     </dl>
   );

@@ -84,18 +84,30 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
               </tr>
             );
           })}
-          <tr className="border-b border-line/60" data-row="dewPoint">
+          <tr className="border-b border-line/60" data-row="moisture">
             <th scope="row" className="px-3 py-1.5 text-left font-normal">
-              <Hint text="The lowest interface temperature of the reported days against the dew point of the indoor air (Magnus formula at the mean indoor temperature and the exposure's relative humidity). A screening only: no vapour resistance, moisture storage or air leakage; assess condensation risk properly (EN ISO 13788) and against local codes. Marked where an interface reaches the dew point.">
-                Dew-point screening
+              <Hint text="ISO 13788 under the exposure's monthly climate: the interstitial check (monthly Glaser method: does vapour condense in the build-up, and does it dry out within the year) and the surface check (f_Rsi against the mould and condensation limits). Marked where either finds a risk. A steady monthly method: it models no moisture storage, rain or air leakage; assess against local codes.">
+                Moisture (ISO 13788)
               </Hint>
             </th>
-            {figures.map((f, i) => (
-              <td key={i} className={`px-3 py-1.5 text-right ${f.belowDewPoint ? 'bg-danger-soft text-danger font-semibold' : ''}`} data-alt={i} data-risk={f.belowDewPoint ? 'true' : 'false'}>
-                {f.dewPoint ? (f.belowDewPoint ? 'reaches the dew point' : 'stays above') : 'not checked'}
-                {f.dewPoint ? <span className="block text-xs font-normal text-ink-soft">dew point {fixed(f.dewPoint.value, 1)} °C</span> : null}
-              </td>
-            ))}
+            {figures.map((f, i) => {
+              const m = f.moisture;
+              const risk = !!m && (m.verdict !== 'none' || m.mouldRisk || m.condensationRisk);
+              return (
+                <td key={i} className={`px-3 py-1.5 text-right text-xs ${risk ? 'bg-danger-soft text-danger' : ''}`} data-alt={i} data-risk={risk ? 'true' : 'false'} title={m ? `${m.text} ${m.surfaceText}` : undefined}>
+                  {m ? (
+                    <>
+                      <span className="font-semibold">{m.label}</span>
+                      <span className="block text-ink-soft">
+                        surface {m.mouldRisk ? 'mould risk' : m.condensationRisk ? 'condensation risk' : 'passes'} (f_Rsi {fixed(m.fRsi, 2)})
+                      </span>
+                    </>
+                  ) : (
+                    <span className="text-ink-faint">no monthly climate or a layer without μ: not assessed</span>
+                  )}
+                </td>
+              );
+            })}
           </tr>
           {MOST_ROWS.map((m) => (
             <tr key={m} className="border-b border-line/60" data-row={`most-${m}`}>
@@ -127,14 +139,14 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
           ))}
           <tr data-row="mesh">
             <th scope="row" className="px-3 py-1.5 text-left font-normal">
-              <Hint text="Each layer gets at least 4 cells and no cell thicker than the exposure's largest cell; the time step is the exposure's; Crank–Nicolson. The energy-balance error is |heat in − heat out − change of stored heat| over the run, relative to the largest.">
-                Mesh, step, energy balance
+              <Hint text="Each layer gets at least 4 cells and no cell thicker than the exposure's largest cell; the time step is the exposure's; the scheme as the engine ran it.">
+                Mesh, step and scheme
               </Hint>
             </th>
             {figures.map((f, i) => (
               <td key={i} className="px-3 py-1.5 text-right text-xs text-ink-soft" data-alt={i}>
                 {f.run.cells} cells, {f.run.timeStep} s
-                <span className="block">balance error {Number.isFinite(f.run.energyBalanceError) ? f.run.energyBalanceError.toExponential(1) : '–'}</span>
+                <span className="block">{f.run.scheme}</span>
               </td>
             ))}
           </tr>

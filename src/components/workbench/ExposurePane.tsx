@@ -3,7 +3,10 @@
 // the last valid value, so a half-typed number never reaches the run.
 import { createContext, useContext, useEffect, useId, useRef, useState, type ReactNode } from 'react';
 import { useWorkbench } from '../../lib/workbench/store';
-import { HEAT_FLOW_DIRECTIONS, ISO6946_RSE, ISO6946_RSI, type Exposure, type Outdoor } from '../../lib/schemas/workbench';
+import { HEAT_FLOW_DIRECTIONS, ISO6946_RSE, ISO6946_RSI, defaultPlaceSun, skyLossOf, type Exposure, type Outdoor, type SunSpec } from '../../lib/schemas/workbench';
+import { PLACE_PRESETS } from '../../lib/solar/places';
+import { HOTTEL_CLIMATE_NAMES } from '../../lib/solar/clearSky';
+import SunOnFace from './SunOnFace';
 import type { UploadSummary } from '../../lib/schemas/upload';
 import CsvImport from './CsvImport';
 import { MAX_RUN_DAYS, daysRule, parseNumber, warmupRule, type NumberRule } from './numberRule';
@@ -110,8 +113,43 @@ function Group({ title, children, help }: { title: string; children: ReactNode; 
 
 const hourRule = (label: string): NumberRule => ({ label, unit: 'h', min: 0, max: 24 });
 
-/** defaults for the sun when switching to a sol-air day: a west face in summer (our own choice) */
-const SUN_DEFAULTS = { absorptance: 0.6, peakIrradiance: 550, sunrise: 11, sunset: 20 };
+/** defaults when switching to a sol-air day: a west wall at the Harrow Lane site in July, with the sky's long-wave loss (our own choice) */
+const SOLAIR_DEFAULTS = { absorptance: 0.6, face: { azimuth: 270, tilt: 90 }, skyLoss: { emissivity: 0.9 } };
+/** the hand-typed sun of "custom": a west face in summer (our own choice) */
+const CUSTOM_SUN: SunSpec = { source: 'custom', peakIrradiance: 550, sunrise: 11, sunset: 20 };
+const CLIMATE_LABEL: Record<string, string> = {
+  'midlatitude-summer': 'Mid-latitude summer',
+  'midlatitude-winter': 'Mid-latitude winter',
+  'subarctic-summer': 'Subarctic summer',
+  tropical: 'Tropical',
+};
+const COMPASS: [number, string][] = [
+  [0, 'north'],
+  [45, 'north-east'],
+  [90, 'east'],
+  [135, 'south-east'],
+  [180, 'south'],
+  [225, 'south-west'],
+  [270, 'west'],
+  [315, 'north-west'],
+];
+const compassOf = (az: number) => COMPASS.find(([a]) => Math.abs(a - az) < 1e-9)?.[1] ?? null;
+
+/** a labelled select that follows the pane's read-only state */
+function Select({ label, value, onChange, children, hint, testId }: { label: string; value: string; onChange(v: string): void; children: ReactNode; hint?: string; testId?: string }) {
+  const id = useId();
+  const readOnly = useContext(ReadOnly);
+  return (
+    <div className="flex flex-col gap-0.5">
+      <label htmlFor={id} className="text-xs text-ink-soft" title={hint}>
+        {label}
+      </label>
+      <select id={id} data-testid={testId} title={hint} className="rounded border border-line px-2 py-1 bg-panel disabled:bg-paper disabled:text-ink-soft" disabled={readOnly} value={value} onChange={(e) => onChange(e.target.value)}>
+        {children}
+      </select>
+    </div>
+  );
+}
 
 export default function ExposurePane({ readOnly = false }: { readOnly?: boolean }) {
   const exposure = useWorkbench((s) => s.doc.exposure);
@@ -128,8 +166,10 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
   const [importing, setImporting] = useState(false);
   const [uploadState, setUploadState] = useState<'idle' | 'loading' | 'error'>('idle');
   const loadedUpload = useRef<number | null>(null);
-  const lastSine = useRef({ mean: 'mean' in out ? out.mean : 22, swing: 'swing' in out ? out.swing : 12, peakHour: 'peakHour' in out ? out.peakHour : 15 });
-  if (out.mode !== 'series') lastSine.current = { mean: out.mean, swing: out.swing, peakHour: out.peakHour };
+  const lastSine = useRef({ mean: 'mean' in out ? out.mean : 22, amplitude: 'amplitude' in out ? out.amplitude : 6, peakHour: 'peakHour' in out ? out.peakHour : 15 });
+  if (out.mode !== 'series') lastSine.current = { mean: out.mean, amplitude: out.amplitude, peakHour: out.peakHour };
+  const lastSolair = useRef<Extract<Outdoor, { mode: 'solair' }> | null>(out.mode === 'solair' ? out : null);
+  if (out.mode === 'solair') lastSolair.current = out;
 
   useEffect(() => setMode(out.mode), [out.mode]);
 
@@ -178,10 +218,10 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
 
   const chooseMode = (m: Outdoor['mode']) => {
     setMode(m);
-    for (const k of ['mean', 'swing', 'peakHour', 'absorptance', 'peakIrradiance', 'sunrise', 'sunset']) clearDraft(`exposure:${k}`);
+    for (const k of Object.keys(useWorkbench.getState().drafts)) if (k.startsWith('exposure:sun') || ['exposure:mean', 'exposure:amplitude', 'exposure:peakHour', 'exposure:absorptance'].includes(k)) clearDraft(k);
     const sine = lastSine.current;
     if (m === 'sine') setOutdoor({ mode: 'sine', ...sine });
-    else if (m === 'solair') setOutdoor({ mode: 'solair', ...sine, ...SUN_DEFAULTS, ...(out.mode === 'solair' ? out : {}) });
+    else if (m === 'solair') setOutdoor(lastSolair.current ? { ...lastSolair.current, ...sine } : { mode: 'solair', ...sine, ...SOLAIR_DEFAULTS, sun: defaultPlaceSun() });
     // an uploaded series waits until an upload is picked
   };
 
@@ -190,9 +230,8 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
     <NumberField field={`exposure:${key}`} rule={rule} value={exposure[key] as number | null} onValue={(v) => setExposure({ [key]: v } as Partial<Exposure>)} hint={hint} width={width} />
   );
 
-  const sunrise = out.mode === 'solair' ? out.sunrise : 0;
-  const sunset = out.mode === 'solair' ? out.sunset : 24;
-  const totalDays = exposure.days + exposure.warmupDays;
+  const totalDays = exposure.days + (out.mode === 'series' ? exposure.warmupDays : 0);
+  const sunOrSkyIgnored = out.mode === 'solair' && exposure.outsideSurfaceResistance === 0;
 
   return (
     <ReadOnly.Provider value={readOnly}>
@@ -220,32 +259,20 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
         {out.mode !== 'series' && mode !== 'series' ? (
           <>
             <NumberField field="exposure:mean" rule={{ label: 'Daily mean', unit: '°C', min: -80, max: 70 }} value={out.mean} onValue={(v) => patchOutdoor({ mean: v! })} hint="Mean outdoor air temperature over the day" />
-            <NumberField field="exposure:swing" rule={{ label: 'Daily swing', unit: 'K', min: 0, max: 60 }} value={out.swing} onValue={(v) => patchOutdoor({ swing: v! })} hint="Maximum minus minimum of the day; the sine's amplitude is half of it" />
+            <NumberField field="exposure:amplitude" rule={{ label: 'Amplitude', unit: 'K', min: 0, max: 30 }} value={out.amplitude} onValue={(v) => patchOutdoor({ amplitude: v! })} hint="Amplitude of the daily sine: the maximum lies this far above the mean (ISO 13786 works in amplitudes). The swing, maximum − minimum, is twice it." />
+            <div className="flex flex-col gap-0.5" data-testid="swing-readout">
+              <span className="text-xs text-ink-soft" title="Maximum − minimum of the day = 2 × amplitude">
+                Swing (max − min)
+              </span>
+              <span className="px-2 py-1 tabular text-ink-soft" title="Maximum − minimum of the day = 2 × amplitude">
+                {Number((2 * out.amplitude).toPrecision(10))} K
+              </span>
+            </div>
             <NumberField field="exposure:peakHour" rule={hourRule('Hour of peak')} value={out.peakHour} onValue={(v) => patchOutdoor({ peakHour: v! })} hint="Hour of the day when the outdoor air is warmest" />
           </>
         ) : null}
         {out.mode === 'solair' && mode === 'solair' ? (
-          <>
-            <NumberField field="exposure:absorptance" rule={{ label: 'Solar absorptance', unit: '', min: 0, max: 1 }} value={out.absorptance} onValue={(v) => patchOutdoor({ absorptance: v! })} hint="Fraction of the sun on the face that the outer surface absorbs (0–1)" />
-            <NumberField field="exposure:peakIrradiance" rule={{ label: 'Peak irradiance on the face', unit: 'W/m²', min: 0, max: 1400 }} value={out.peakIrradiance} onValue={(v) => patchOutdoor({ peakIrradiance: v! })} hint="Highest irradiance on the wall's face in the day" />
-            <NumberField
-              field="exposure:sunrise"
-              rule={{ label: 'Sun on the face from', unit: 'h', min: 0, max: 24, inclusive: true, extra: (v) => (v >= sunset ? `Sun on the face from must be before the sun leaves the face (${sunset} h)` : null) }}
-              value={out.sunrise}
-              onValue={(v) => patchOutdoor({ sunrise: v! })}
-              hint="Hour the sun starts to reach the face"
-            />
-            <NumberField
-              field="exposure:sunset"
-              rule={{ label: 'Sun leaves the face at', unit: 'h', min: 0, max: 24, extra: (v) => (v <= sunrise ? `Sun leaves the face at must be after the sun reaches it (${sunrise} h)` : null) }}
-              value={out.sunset}
-              onValue={(v) => patchOutdoor({ sunset: v! })}
-              hint="Hour the sun stops reaching the face"
-            />
-            <p className="w-full text-xs text-ink-faint">
-              Clear-day irradiance: a half sine between the two hours, zero outside them (common practice). Sol-air temperature = air + absorptance × irradiance × R<sub>se</sub>.
-            </p>
-          </>
+          <SolAirFields out={out} outsideSurfaceResistance={exposure.outsideSurfaceResistance} setOutdoor={setOutdoor} clearDraft={clearDraft} />
         ) : null}
         {mode === 'series' ? (
           <div className="w-full flex flex-col gap-2" data-testid="upload-picker">
@@ -337,7 +364,7 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
             ))}
           </div>
         )}
-        {num('indoorRelativeHumidity', { label: 'Indoor relative humidity', unit: '%', min: 0, max: 100, inclusive: true, optional: true, extra: (v) => (v <= 0 ? 'Indoor relative humidity must be greater than 0 %' : null) }, 'For the dew-point check; leave empty to skip it')}
+        <p className="basis-full text-xs text-ink-soft">Indoor humidity and the moisture check (ISO 13788, by month) are in the Moisture pane.</p>
       </Group>
 
       <Group title="Surface resistances" help="ISO 6946 conventional values by direction of heat flow, or your own">
@@ -377,11 +404,22 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
         ) : (
           <span className="self-end text-xs text-ink-faint pb-1.5">Own values</span>
         )}
+        {sunOrSkyIgnored ? (
+          <p role="alert" className="w-full rounded border border-warn/40 bg-warn-soft px-3 py-2 text-xs" data-testid="rse-zero-warning">
+            R<sub>se</sub> is 0: the outer surface is held at the outdoor air temperature, so the sun and the long-wave loss to the sky no longer apply (the sol-air terms are multiplied by R<sub>se</sub>).
+          </p>
+        ) : null}
       </Group>
 
       <Group title="Run">
         {num('days', daysRule(exposure.warmupDays), `Days whose figures are reported; with the warm-up days at most ${MAX_RUN_DAYS} days (ten years) in all`)}
-        {num('warmupDays', warmupRule(exposure.days), 'Days run first and left out of the figures, so the wall forgets its starting state')}
+        {out.mode === 'series' ? (
+          num('warmupDays', warmupRule(exposure.days), 'Uploaded series only: days run first (from the steady state of the first hour) and left out of the figures, so the wall forgets its starting state')
+        ) : (
+          <p className="self-end text-xs text-ink-soft pb-1.5 max-w-56" data-testid="periodic-start-note" title="The run starts in the periodic steady state that the repeating day drives, computed by the engine; no warm-up days are needed">
+            Starts in the periodic state of the repeating day: no warm-up.
+          </p>
+        )}
         <label className="flex flex-col gap-0.5">
           <span className="text-xs text-ink-soft">Time step</span>
           <select className="rounded border border-line px-2 py-1 bg-panel tabular disabled:bg-paper disabled:text-ink-soft" disabled={readOnly} value={exposure.timeStep} onChange={(e) => setExposure({ timeStep: Number(e.target.value) })}>
@@ -399,5 +437,195 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
       </Group>
     </section>
     </ReadOnly.Provider>
+  );
+}
+
+/** the sun and sky of a sol-air day: absorptance, the face, the sun by place or by hand, the sky's long-wave loss */
+function SolAirFields({
+  out,
+  outsideSurfaceResistance,
+  setOutdoor,
+  clearDraft,
+}: {
+  out: Extract<Outdoor, { mode: 'solair' }>;
+  outsideSurfaceResistance: number;
+  setOutdoor(o: Outdoor): void;
+  clearDraft(k: string): void;
+}) {
+  const readOnly = useContext(ReadOnly);
+  const sun = out.sun;
+  const patch = (p: Partial<Extract<Outdoor, { mode: 'solair' }>>) => setOutdoor({ ...useWorkbench.getState().doc.exposure.outdoor, ...p } as Outdoor);
+  const patchSun = (p: Record<string, unknown>) => {
+    const cur = useWorkbench.getState().doc.exposure.outdoor;
+    if (cur.mode === 'solair') setOutdoor({ ...cur, sun: { ...cur.sun, ...p } as SunSpec });
+  };
+  const patchFace = (p: Partial<{ azimuth: number; tilt: number }>) => {
+    const cur = useWorkbench.getState().doc.exposure.outdoor;
+    if (cur.mode === 'solair') setOutdoor({ ...cur, face: { ...cur.face, ...p } });
+  };
+  const clearSunDrafts = () => {
+    for (const k of Object.keys(useWorkbench.getState().drafts)) if (k.startsWith('exposure:sun')) clearDraft(k);
+  };
+  const preset = sun.source === 'place' ? (PLACE_PRESETS.find((p) => p.name === sun.placeName && p.latitude === sun.latitude && p.longitude === sun.longitude && p.timeZone === sun.timeZone && p.elevation === sun.elevation)?.key ?? 'own') : 'own';
+  const compass = compassOf(out.face.azimuth);
+  const skyLoss = skyLossOf(out);
+  return (
+    <>
+      <NumberField field="exposure:absorptance" rule={{ label: 'Solar absorptance', unit: '', min: 0, max: 1 }} value={out.absorptance} onValue={(v) => patch({ absorptance: v! })} hint="Fraction of the sun on the face that the outer surface absorbs (0–1)" />
+      <div className="w-full flex flex-wrap gap-3 items-start" role="group" aria-label="The face">
+        <Select
+          label="Face looks"
+          testId="face-compass"
+          value={compass ?? 'own'}
+          hint="Where the face's outward normal points"
+          onChange={(v) => {
+            const hit = COMPASS.find(([, n]) => n === v);
+            if (hit) {
+              clearDraft('exposure:sun:azimuth');
+              patchFace({ azimuth: hit[0] });
+            }
+          }}
+        >
+          {COMPASS.map(([a, n]) => (
+            <option key={a} value={n}>
+              {n} ({a}°)
+            </option>
+          ))}
+          {compass === null ? <option value="own">own azimuth</option> : null}
+        </Select>
+        <NumberField field="exposure:sun:azimuth" rule={{ label: 'Azimuth', unit: '°', min: 0, max: 360, inclusive: true, extra: (v) => (v >= 360 ? 'Azimuth must be less than 360°' : null) }} value={out.face.azimuth} onValue={(v) => patchFace({ azimuth: v! })} hint="Of the face's outward normal, clockwise from north: 0 north, 90 east, 180 south, 270 west" width="w-20" />
+        <NumberField field="exposure:sun:tilt" rule={{ label: 'Tilt', unit: '°', min: 0, max: 180 }} value={out.face.tilt} onValue={(v) => patchFace({ tilt: v! })} hint="From horizontal: 0 a flat roof, 90 a wall" width="w-20" />
+      </div>
+      <div className="w-full flex flex-col gap-2" role="group" aria-label="Sun on the face">
+        <Choice
+          label="Sun on the face"
+          options={[
+            ['place', 'Clear day by place and date'],
+            ['custom', 'Custom half sine'],
+          ]}
+          value={sun.source}
+          onChoose={(src) => {
+            if (src === sun.source) return;
+            clearSunDrafts();
+            patch({ sun: src === 'place' ? defaultPlaceSun() : CUSTOM_SUN });
+          }}
+        />
+        {sun.source === 'place' ? (
+          <div className="flex flex-wrap gap-3 items-start">
+            <Select
+              label="Place"
+              testId="place-preset"
+              value={preset}
+              hint="Named places of the job, or your own coordinates"
+              onChange={(key) => {
+                const p = PLACE_PRESETS.find((x) => x.key === key);
+                if (!p) return;
+                clearSunDrafts();
+                patchSun({ placeName: p.name, latitude: p.latitude, longitude: p.longitude, timeZone: p.timeZone, elevation: p.elevation, climate: p.climate });
+              }}
+            >
+              {PLACE_PRESETS.map((p) => (
+                <option key={p.key} value={p.key}>
+                  {p.name}
+                </option>
+              ))}
+              {preset === 'own' ? <option value="own">{sun.placeName ? `${sun.placeName} (own)` : 'Own place'}</option> : null}
+            </Select>
+            <NumberField field="exposure:sun:latitude" rule={{ label: 'Latitude', unit: '° N', min: -66, max: 66 }} value={sun.latitude} onValue={(v) => patchSun({ latitude: v!, placeName: '' })} hint="Degrees north (south negative), within the polar circles" width="w-20" />
+            <NumberField field="exposure:sun:longitude" rule={{ label: 'Longitude', unit: '° E', min: -180, max: 180 }} value={sun.longitude} onValue={(v) => patchSun({ longitude: v!, placeName: '' })} hint="Degrees east (west negative)" width="w-20" />
+            <NumberField field="exposure:sun:timeZone" rule={{ label: 'Clock, UTC +', unit: 'h', min: -12, max: 14 }} value={sun.timeZone} onValue={(v) => patchSun({ timeZone: v!, placeName: '' })} hint="The clock the hours of the day are read in, as an offset from UTC: +1 for British Summer Time, 0 for GMT" width="w-16" />
+            <NumberField field="exposure:sun:elevation" rule={{ label: 'Elevation', unit: 'm', min: 0, max: 2500 }} value={sun.elevation} onValue={(v) => patchSun({ elevation: v!, placeName: '' })} hint="Height of the site above sea level, for the clear-sky transmittance (Hottel's model holds below 2500 m)" width="w-20" />
+            <DateField value={sun.date} onValue={(d) => patchSun({ date: d })} />
+            <NumberField field="exposure:sun:groundReflectance" rule={{ label: 'Ground reflectance', unit: '', min: 0, max: 1 }} value={sun.groundReflectance} onValue={(v) => patchSun({ groundReflectance: v! })} hint="Share of the sun the ground in front of the face reflects: about 0.2 for grass and paving (common practice)" width="w-20" />
+            <Select label="Clear sky (Hottel 1976)" value={sun.climate} onChange={(v) => patchSun({ climate: v })} hint="Hottel's (1976) clear-sky beam transmittance with Liu & Jordan's (1960) diffuse (Duffie & Beckman §2.8); the climate sets its correction factors (their table 2.8.1)">
+              {HOTTEL_CLIMATE_NAMES.map((c) => (
+                <option key={c} value={c}>
+                  {CLIMATE_LABEL[c]}
+                </option>
+              ))}
+            </Select>
+            <Select label="Sky model on the face" value={sun.transposition} onChange={(v) => patchSun({ transposition: v })} hint="How sky diffuse reaches a tilted face: isotropic (Liu & Jordan 1963) or with circumsolar diffuse (Hay & Davies 1980)">
+              <option value="isotropic">Isotropic (Liu–Jordan 1963)</option>
+              <option value="hay-davies">Hay–Davies (1980)</option>
+            </Select>
+          </div>
+        ) : (
+          <div className="flex flex-wrap gap-3 items-start">
+            <NumberField field="exposure:sun:peakIrradiance" rule={{ label: 'Peak irradiance on the face', unit: 'W/m²', min: 0, max: 1400 }} value={sun.peakIrradiance} onValue={(v) => patchSun({ peakIrradiance: v! })} hint="Highest irradiance on the wall's face in the day" />
+            <NumberField
+              field="exposure:sun:sunrise"
+              rule={{ label: 'Sun on the face from', unit: 'h', min: 0, max: 24, inclusive: true, extra: (v) => (v >= sun.sunset ? `Sun on the face from must be before the sun leaves the face (${sun.sunset} h)` : null) }}
+              value={sun.sunrise}
+              onValue={(v) => patchSun({ sunrise: v! })}
+              hint="Hour the sun starts to reach the face"
+            />
+            <NumberField
+              field="exposure:sun:sunset"
+              rule={{ label: 'Sun leaves the face at', unit: 'h', min: 0, max: 24, extra: (v) => (v <= sun.sunrise ? `Sun leaves the face at must be after the sun reaches it (${sun.sunrise} h)` : null) }}
+              value={sun.sunset}
+              onValue={(v) => patchSun({ sunset: v! })}
+              hint="Hour the sun stops reaching the face"
+            />
+          </div>
+        )}
+      </div>
+      <div className="w-full flex flex-wrap gap-3 items-end" role="group" aria-label="Long-wave loss to the sky">
+        <label className="flex items-center gap-1.5 pb-1.5" title="The outer surface's net long-wave loss to a sky colder than the air, by ISO 13790 §11.4.6">
+          <input type="checkbox" data-testid="sky-loss-toggle" disabled={readOnly} checked={out.skyLoss !== null} onChange={(e) => patch({ skyLoss: e.target.checked ? { emissivity: 0.9 } : null })} />
+          <span>Long-wave loss to the sky</span>
+        </label>
+        {out.skyLoss ? (
+          <NumberField field="exposure:sun:emissivity" rule={{ label: 'Emissivity', unit: '', min: 0, max: 1 }} value={out.skyLoss.emissivity} onValue={(v) => patch({ skyLoss: { emissivity: v! } })} hint="Long-wave emissivity of the outer surface: about 0.9 for building materials (ISO 13790 §11.4.6)" width="w-20" />
+        ) : null}
+        {skyLoss !== null ? <span className="sr-only">{skyLoss.toFixed(1)} W/m²</span> : null}
+      </div>
+      <SunOnFace outdoor={out} outsideSurfaceResistance={outsideSurfaceResistance} />
+      <p className="w-full text-xs text-ink-faint">
+        Sol-air temperature = air + R<sub>se</sub> × (absorptance × irradiance − long-wave loss to the sky).
+      </p>
+    </>
+  );
+}
+
+/** the day of the clear-sky sun; a bad date keeps its text and message, the document keeps the last good one */
+function DateField({ value, onValue }: { value: string; onValue(v: string): void }) {
+  const id = useId();
+  const readOnly = useContext(ReadOnly);
+  const [text, setText] = useState(value);
+  const [error, setError] = useState<string | null>(null);
+  useEffect(() => {
+    setText(value);
+    setError(null);
+  }, [value]);
+  return (
+    <div className="flex flex-col gap-0.5">
+      <label htmlFor={id} className="text-xs text-ink-soft" title="The day of the year the clear sky is computed for">
+        Date
+      </label>
+      <input
+        id={id}
+        type="date"
+        data-testid="sun-date"
+        min="1900-01-01"
+        max="2200-12-31"
+        readOnly={readOnly}
+        className={`rounded border px-2 py-1 tabular ${readOnly ? 'bg-paper text-ink-soft' : 'bg-panel'} ${error ? 'border-danger' : 'border-line'}`}
+        value={text}
+        aria-invalid={error ? true : undefined}
+        onChange={(e) => {
+          const v = e.target.value;
+          setText(v);
+          if (/^\d{4}-\d{2}-\d{2}$/.test(v) && !Number.isNaN(Date.parse(v))) {
+            setError(null);
+            if (v !== value) onValue(v);
+          } else setError('Date must be a day written YYYY-MM-DD');
+        }}
+      />
+      {error ? (
+        <span className="text-xs text-danger" role="alert">
+          {error}
+        </span>
+      ) : null}
+    </div>
   );
 }

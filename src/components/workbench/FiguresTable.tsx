@@ -1,7 +1,9 @@
 // the figures table of a run: simulated beside analytic, each with how it was computed
 import type { RunDone } from '../../lib/workbench/runDocument';
-import type { Exposure } from '../../lib/schemas/workbench';
-import { dayClock, PERIODIC_TOLERANCE } from '../../lib/workbench/figures';
+import { effectiveWarmupDays, type Exposure } from '../../lib/schemas/workbench';
+import { dayClock, ACCURACY_TOLERANCE } from '../../lib/workbench/figures';
+import { MOISTURE_DEFERRAL } from '../../lib/moisture/index.ts';
+import MonthlyBars from './MonthlyBars';
 
 const H = 3600;
 
@@ -26,7 +28,8 @@ interface Row {
 export function figureRows(run: RunDone, exposure: Exposure): Row[] {
   const f = run.figures;
   const a = run.analytic;
-  const lastDay = `the last simulated day (${dayClock(f.lastPeriodFrom - exposure.warmupDays * 86400)} to the end)`;
+  const lastDay = `the last simulated day (${dayClock(f.lastPeriodFrom - effectiveWarmupDays(exposure) * 86400)} to the end)`;
+  const fitted = f.periodic.start === 'warm-up' ? ' (fitted, approximate: the series does not repeat)' : '';
   const drive = run.series.solAir.some((v, k) => v !== run.series.outsideAir[k]) ? 'sol-air temperature' : 'outdoor air temperature';
   const rows: Row[] = [
     {
@@ -39,19 +42,19 @@ export function figureRows(run: RunDone, exposure: Exposure): Row[] {
     },
     {
       key: 'decrementFactor',
-      label: 'Decrement factor',
+      label: `Decrement factor${fitted ? ', fitted' : ''}`,
       unit: '–',
       simulated: fixed(f.decrementFactor.simulated, 3),
       analytic: fixed(f.decrementFactor.analytic, 3),
-      how: `Simulated: amplitude of the first harmonic of the inside heat flux over ${lastDay}, divided by the amplitude of the first harmonic of the ${drive} and by the U-value. Analytic: ISO 13786 transfer matrices, |Y₁₂| / U.`,
+      how: `Simulated: amplitude of the first harmonic of the inside heat flux over ${lastDay}, divided by the amplitude of the first harmonic of the ${drive} and by the U-value${fitted}. Analytic: ISO 13786 transfer matrices, |Y₁₂| / U.`,
     },
     {
       key: 'timeLag',
-      label: 'Time lag',
+      label: `Time lag${fitted ? ', fitted' : ''}`,
       unit: 'h',
       simulated: fixed(f.timeLag.simulated / H, 2),
       analytic: fixed(f.timeLag.analytic / H, 2),
-      how: `Simulated: phase of the first harmonic of the inside heat flux minus that of the ${drive}, over ${lastDay}. Analytic: ISO 13786, the phase of Y₁₂.`,
+      how: `Simulated: phase of the first harmonic of the inside heat flux minus that of the ${drive}, over ${lastDay}${fitted}. Analytic: ISO 13786, the phase of Y₁₂.`,
     },
     {
       key: 'periodicTransmittance',
@@ -62,13 +65,22 @@ export function figureRows(run: RunDone, exposure: Exposure): Row[] {
       how: 'Inside heat flux amplitude per kelvin of outdoor amplitude; simulated from the fitted harmonics, analytic |Y₁₂| of ISO 13786.',
     },
     {
-      key: 'peakInsideFlux',
-      label: 'Peak inside heat flux',
+      key: 'peakHeatGain',
+      label: 'Peak heat gain',
       unit: 'W/m²',
-      simulated: fixed(f.peakInsideFlux.value, 2),
+      simulated: fixed(f.peakHeatGain.value, 2),
       analytic: '',
-      note: dayClock(f.peakInsideFlux.time),
-      how: 'Largest inside heat flux (positive into the room) at the output times of the reported days.',
+      note: Number.isFinite(f.peakHeatGain.time) ? dayClock(f.peakHeatGain.time) : 'no gain',
+      how: 'Largest inside heat flux into the room at the output times of the reported days (0 when heat never enters the room).',
+    },
+    {
+      key: 'peakHeatLoss',
+      label: 'Peak heat loss',
+      unit: 'W/m²',
+      simulated: fixed(f.peakHeatLoss.value, 2),
+      analytic: '',
+      note: Number.isFinite(f.peakHeatLoss.time) ? dayClock(f.peakHeatLoss.time) : 'no loss',
+      how: 'Largest inside heat flux out of the room at the output times of the reported days, as a positive number (0 when heat never leaves the room).',
     },
     {
       key: 'heatGained',
@@ -85,6 +97,24 @@ export function figureRows(run: RunDone, exposure: Exposure): Row[] {
       simulated: fixed(f.heatLost, 1),
       analytic: '',
       how: `Time integral of the negative part of the inside heat flux over ${lastDay}, shown as a positive amount.`,
+    },
+    {
+      key: 'totalHeatGained',
+      label: 'Heat into the room, reported period',
+      unit: 'kWh/m²',
+      simulated: fixed(f.totalHeatGained, 3),
+      analytic: '',
+      note: `${exposure.days} d`,
+      how: 'Time integral of the positive part of the inside heat flux over all the reported days (trapezoids split where the flux changes sign), in kWh per m² of wall.',
+    },
+    {
+      key: 'totalHeatLost',
+      label: 'Heat out of the room, reported period',
+      unit: 'kWh/m²',
+      simulated: fixed(f.totalHeatLost, 3),
+      analytic: '',
+      note: `${exposure.days} d`,
+      how: 'Time integral of the negative part of the inside heat flux over all the reported days, shown as a positive amount, in kWh per m² of wall.',
     },
     {
       key: 'insideSurfaceMin',
@@ -114,30 +144,62 @@ export function figureRows(run: RunDone, exposure: Exposure): Row[] {
       analytic: '',
       note: `${f.lowestInterface.name}, ${dayClock(f.lowestInterface.time)}`,
       how: 'Lowest temperature of any interface between two layers at the output times of the reported days.',
-      warn: f.belowDewPoint,
     });
   }
-  if (f.dewPoint) {
+  const m = f.moisture;
+  rows.push(
+    m
+      ? {
+          key: 'moistureVerdict',
+          label: 'Moisture, interstitial (ISO 13788)',
+          unit: 'g/m²',
+          simulated: m.verdict === 'none' ? '0' : fixed(m.maxAccumulated, m.maxAccumulated >= 100 ? 0 : 1),
+          analytic: '',
+          note: m.label + (m.maxAtPlane ? `, most at ${m.maxAtPlane}` : ''),
+          how: 'Largest water held over the year by the ISO 13788 monthly Glaser method under the document’s monthly climate (steady months, vapour diffusion only, δ₀ = 2×10⁻¹⁰ kg/(m·s·Pa)); the Moisture pane shows the diagram and the months.',
+          warn: m.verdict === 'accumulates',
+        }
+      : {
+          key: 'moistureVerdict',
+          label: 'Moisture, interstitial (ISO 13788)',
+          unit: '',
+          simulated: '–',
+          analytic: '',
+          note: 'no monthly climate: set one in the Moisture pane',
+          how: 'The ISO 13788 monthly check needs twelve months of outdoor climate and the indoor air (the Moisture pane).',
+        },
+  );
+  if (m) {
     rows.push({
-      key: 'dewPoint',
-      label: 'Dew point of the indoor air',
-      unit: '°C',
-      simulated: fixed(f.dewPoint.value, 2),
+      key: 'surfaceFactor',
+      label: 'Inside surface temperature factor f_Rsi',
+      unit: '–',
+      simulated: fixed(m.fRsi, 3),
       analytic: '',
-      note: `at ${fixed(f.dewPoint.airTemperature, 1)} °C and ${fixed(f.dewPoint.relativeHumidity, 0)} % RH`,
-      how: 'Magnus formula (Alduchov & Eskridge coefficients, over water) at the mean indoor air temperature of the reported days and the indoor relative humidity.',
-      warn: f.belowDewPoint,
+      note: m.fRsiMin === null ? 'no month loses heat' : `needs ${fixed(m.fRsiMin, 3)} against mould${m.mouldRisk ? ': mould risk' : ''}`,
+      how: 'f_Rsi = 1 − R_si/R_T with R_si 0.25 m²K/W, against f_Rsi,min for 80 % surface humidity in the critical month (ISO 13788 clause 6).',
+      warn: m.mouldRisk || m.condensationRisk,
     });
   }
   rows.push(
     {
-      key: 'energyBalanceError',
-      label: 'Energy-balance error',
-      unit: '–',
-      simulated: Number.isFinite(f.energyBalanceError) ? f.energyBalanceError.toExponential(1) : '–',
+      key: 'accuracyEstimate',
+      label: 'Discretisation error, estimated',
+      unit: '%',
+      simulated: f.accuracy ? fixed(f.accuracy.relative * 100, 2) : '–',
       analytic: '',
-      how: '|heat in at the outside − heat out at the inside − change of stored heat| over the whole run, relative to the largest of the three.',
-      warn: f.energyBalanceError > 1e-6,
+      note: f.accuracy ? `±${fixed(f.accuracy.maxDifference, 3)} W/m² against ${f.accuracy.coarseCells} cells, step ${f.accuracy.coarseTimeStep} s` : 'not estimated',
+      how: 'The same run again at twice the time step and twice the largest cell: the largest difference of the inside heat flux at their common output times over the reported days, relative to the inside heat flux amplitude (half its range). Both errors fall as the square of the step (Crank–Nicolson) and of the cell, so the run itself is about three times closer than this. Over 1 %: refine the step or the cells.',
+      warn: f.accuracy ? f.accuracy.relative > ACCURACY_TOLERANCE : false,
+    },
+    {
+      key: 'bookkeepingClosure',
+      label: 'Energy bookkeeping closure',
+      unit: '–',
+      simulated: Number.isFinite(f.bookkeepingClosure) ? f.bookkeepingClosure.toExponential(1) : '–',
+      analytic: '',
+      how: '|heat in at the outside − heat out at the inside − change of stored heat| over the whole run, relative to the largest of the three. The scheme conserves energy by construction, so this only proves the bookkeeping; it says nothing of accuracy (see the estimated discretisation error).',
+      warn: f.bookkeepingClosure > 1e-6,
     },
     {
       key: 'mesh',
@@ -145,8 +207,8 @@ export function figureRows(run: RunDone, exposure: Exposure): Row[] {
       unit: '',
       simulated: `${f.cells} cells`,
       analytic: '',
-      note: `largest cell ${fixed(f.maxCellSize * 1000, 1)} mm, step ${f.timeStep} s, Crank–Nicolson`,
-      how: 'Each layer gets at least 4 cells and no cell thicker than the largest cell; the time step is the run setting.',
+      note: `largest cell ${fixed(f.maxCellSize * 1000, 1)} mm, step ${f.timeStep} s, ${f.scheme}`,
+      how: 'Each layer gets at least 4 cells and no cell thicker than the largest cell; the time step is the run setting; the scheme as the engine counted its steps.',
     },
   );
   return rows;
@@ -157,13 +219,30 @@ export default function FiguresTable({ run, exposure }: { run: RunDone; exposure
   const rows = figureRows(run, exposure);
   return (
     <div className="flex flex-col gap-2">
-      {f.periodic.checked && !f.periodic.reached ? (
+      {f.periodic.start === 'periodic' && f.periodic.checked && !f.periodic.reached ? (
         <p role="alert" className="rounded border border-warn/40 bg-warn-soft px-3 py-2" data-testid="periodic-warning">
-          <strong>Not yet a periodic state.</strong> The inside surface temperature at the same time of the last two simulated days differs by up to {fixed(f.periodic.maxDifference, 3)} K
-          (criterion: at most {PERIODIC_TOLERANCE} K). Add warm-up days before reading the simulated decrement factor and time lag.
+          <strong>Not quite periodic.</strong> The inside heat flux at the same time of the last two reported days differs by up to {fixed(f.periodic.maxDifference * 100, 2)} % of its amplitude
+          (criterion: at most {ACCURACY_TOLERANCE * 100} %), although the run started in its periodic state: refine the time step.
         </p>
       ) : null}
-      {!f.periodic.checked ? <p className="text-xs text-ink-soft">The periodic state is not checked: the run is shorter than two days.</p> : null}
+      {f.periodic.start === 'warm-up' ? (
+        <p role={f.periodic.checked && f.periodic.maxDifference > ACCURACY_TOLERANCE ? 'alert' : 'note'} className={`rounded border px-3 py-2 text-xs ${f.periodic.checked && f.periodic.maxDifference > ACCURACY_TOLERANCE ? 'border-warn/40 bg-warn-soft' : 'border-line bg-paper'}`} data-testid="startup-memory">
+          {f.periodic.checked ? (
+            <>
+              <strong>{f.periodic.maxDifference > ACCURACY_TOLERANCE ? 'The start still shows in the last reported day. ' : 'The start is forgotten by the last reported day. '}</strong>
+              A second run from another start differs there by up to {fixed(f.periodic.maxDifference * 100, 2)} % of the inside heat flux amplitude (criterion: at most {ACCURACY_TOLERANCE * 100} %)
+              {f.periodic.maxDifference > ACCURACY_TOLERANCE ? '; add warm-up days.' : '.'} An uploaded series does not repeat, so no periodic state is claimed.
+            </>
+          ) : (
+            'An uploaded series does not repeat, so no periodic state is claimed.'
+          )}
+        </p>
+      ) : null}
+      {f.accuracy && f.accuracy.relative > ACCURACY_TOLERANCE ? (
+        <p role="alert" className="rounded border border-warn/40 bg-warn-soft px-3 py-2" data-testid="accuracy-warning">
+          <strong>The mesh and step may be too coarse.</strong> At twice the step and cell the inside heat flux moves by up to {fixed(f.accuracy.relative * 100, 2)} % of its amplitude (criterion: at most {ACCURACY_TOLERANCE * 100} %). Use a shorter step or smaller cells.
+        </p>
+      ) : null}
       <table className="w-full text-sm tabular" data-testid="figures">
         <thead>
           <tr className="border-b border-line text-ink-soft text-xs">
@@ -194,15 +273,11 @@ export default function FiguresTable({ run, exposure }: { run: RunDone; exposure
           ))}
         </tbody>
       </table>
-      {f.dewPoint ? (
-        <p className={`rounded border px-3 py-2 text-xs ${f.belowDewPoint ? 'border-danger/40 bg-danger-soft' : 'border-line bg-paper'}`} role="note" data-testid="condensation-caution">
-          {f.belowDewPoint ? (
-            <strong>An interface falls to or below the dew point of the indoor air. </strong>
-          ) : (
-            <strong>No interface falls to the dew point of the indoor air in this run. </strong>
-          )}
-          This screening assumes the indoor vapour reaches every interface unchanged; it models no vapour resistance, moisture storage or air leakage. Condensation risk must be
-          assessed properly (for example by the EN ISO 13788 method) and against local codes.
+      {f.monthly.length >= 2 ? <MonthlyBars months={f.monthly} /> : null}
+      {f.moisture ? (
+        <p className={`rounded border px-3 py-2 text-xs ${f.moisture.verdict === 'accumulates' || f.moisture.mouldRisk ? 'border-danger/40 bg-danger-soft' : 'border-line bg-paper'}`} role="note" data-testid="moisture-figures-note">
+          <strong>{f.moisture.label}. </strong>
+          {f.moisture.text} {f.moisture.surfaceText} The monthly method is steady, models vapour diffusion only (no liquid transport, moisture storage, air leakage or rain). {MOISTURE_DEFERRAL}
         </p>
       ) : null}
       {f.notes.length > 0 ? (

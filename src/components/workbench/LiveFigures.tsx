@@ -29,6 +29,9 @@ function Figure({ label, hint, value, unit, testId, align = 'left' }: { label: s
   );
 }
 
+/** s_d in m with about three significant figures */
+const sdText = (sd: number): string => (sd >= 100 ? fixed(sd, 0) : sd >= 1 ? fixed(sd, 2) : fixed(sd, 3));
+
 /** the unit under a column heading */
 const Unit = ({ children }: { children: string }) => <span className="block text-[10px] font-normal text-ink-faint">{children}</span>;
 
@@ -185,6 +188,18 @@ function LiveFigures({ layers, exposure, figures }: Props) {
                 </Hint>
                 <Unit>–</Unit>
               </th>
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+                <Hint align="right" text="Water-vapour resistance factor μ of the layer's material (dimensionless): how many times more a layer resists vapour diffusion than still air of the same thickness. Empty when the layer has none; the moisture check needs it.">
+                  μ
+                </Hint>
+                <Unit>–</Unit>
+              </th>
+              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+                <Hint align="right" text="Diffusion-equivalent air layer thickness s_d = μ·d, m (ISO 13788): the thickness of still air that resists vapour as much as the layer does.">
+                  s_d
+                </Hint>
+                <Unit>m</Unit>
+              </th>
               <th scope="col" className="px-2 py-1.5 align-bottom font-semibold">
                 <Hint align="right" text="Lumped: Bi < 0.1, so the temperature across the layer is nearly uniform at any moment (common practice).">
                   Lumped
@@ -214,6 +229,8 @@ function LiveFigures({ layers, exposure, figures }: Props) {
                   <td className="px-2 py-1 text-right">{fixed(f.penetrationDepth * 1000, 0)}</td>
                   <td className="px-2 py-1 text-right">{f.fourier >= 1000 ? f.fourier.toExponential(1) : fixed(f.fourier, 2)}</td>
                   <td className="px-2 py-1 text-right">{f.biot < 0.001 ? f.biot.toExponential(1) : fixed(f.biot, 3)}</td>
+                  <td className="px-2 py-1 text-right" data-cell="mu">{layer.vapourResistanceFactor === null ? '–' : layer.vapourResistanceFactor >= 1e5 ? layer.vapourResistanceFactor.toExponential(0) : fixed(layer.vapourResistanceFactor, 0)}</td>
+                  <td className="px-2 py-1 text-right" data-cell="sd">{layer.vapourResistanceFactor === null ? '–' : sdText(layer.vapourResistanceFactor * layer.thickness)}</td>
                   <td className="px-2 py-1">{f.lumped ? <span className="rounded bg-accent-soft px-1.5 text-xs font-semibold text-accent-strong">lumped</span> : <span className="text-ink-faint">–</span>}</td>
                 </tr>
               );

@@ -9,6 +9,7 @@ import { Runner, type RunDone } from '../../lib/workbench/runner';
 import { dayClock, summaryOf } from '../../lib/workbench/figures';
 import { seriesCsv } from '../../lib/workbench/exportCsv';
 import type { MaterialClass, UploadedSeries, WorkbenchDocument } from '../../lib/schemas/workbench';
+import { effectiveWarmupDays } from '../../lib/schemas/workbench';
 import { drawProfile, profileRange, profileStyle, type ProfileStyle } from './profileDraw';
 import FiguresTable, { fixed } from './FiguresTable';
 
@@ -93,7 +94,7 @@ export default function ResponsePane({ mode: given }: { mode?: ResponseMode } = 
   const [saved, setSaved] = useState<Saved>({ state: 'none' });
   const cancelRef = useRef<(() => void) | null>(null);
 
-  const totalDays = doc.exposure.days + doc.exposure.warmupDays;
+  const totalDays = doc.exposure.days + effectiveWarmupDays(doc.exposure);
   const waitingForUpload = doc.exposure.outdoor.mode === 'series' && !upload;
 
   useEffect(() => {

@@ -6,6 +6,7 @@ import { diffBuildUps, type BuildUpDiff } from '../../lib/workbench/diff';
 import BuildUpPane from './BuildUpPane';
 import ExposurePane from './ExposurePane';
 import ResponsePane from './ResponsePane';
+import MoisturePane from './moisture/MoisturePane';
 import SaveDialog from './SaveDialog';
 import StaleDialog from './StaleDialog';
 
@@ -337,6 +338,9 @@ export default function Workbench({ assemblyId }: { assemblyId: number }) {
           <div className="rounded-md border border-line bg-paper p-3 min-w-0">
             <ResponsePane mode={readOnly ? 'checker' : 'edit'} />
           </div>
+        </div>
+        <div className="rounded-md border border-line bg-paper p-3 min-w-0">
+          <MoisturePane readOnly={readOnly} />
         </div>
       </div>
 

@@ -6,6 +6,7 @@ import { parseModel, type ModelData } from '../schemas/model.ts';
 import { toModel, workbenchDocumentSchema, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench.ts';
 import { simulateBatch } from '../thermal/batch.ts';
 import { compareRun, type CompareRun } from './compare.ts';
+import { coarserModel } from './runDocument.ts';
 import { fractionIssue, metricsOf, perturbedDocument, type Metrics, type Perturbation } from './sensitivity.ts';
 
 /** fraction done of this call, 0…1 */
@@ -39,10 +40,18 @@ export const compareApi = {
   /** runs the alternatives together; the traces' arrays are transferred, not copied */
   compare(items: CompareItem[], onProgress?: ChunkProgress): CompareOutcome[] {
     const built = items.map((it) => modelOf(it.doc, it.upload));
-    const ok = built.filter((b) => b.ok);
-    const results = ok.length > 0 ? simulateBatch(ok.map((b) => b.model), { storeProfiles: false, onProgress, progressEvery: progressEvery(ok.map((b) => b.model)) }) : [];
+    const ok = built.flatMap((b) => (b.ok ? [b] : []));
+    // each run with its twin at twice the step and cell, for the discretisation estimate (as the workbench makes it)
+    const coarse = ok.map((b) => coarserModel(b.model));
+    const models = [...ok.map((b) => b.model), ...coarse.flatMap((m) => (m ? [m] : []))];
+    const results = models.length > 0 ? simulateBatch(models, { storeProfiles: false, onProgress, progressEvery: progressEvery(models) }) : [];
+    let nextCoarse = ok.length;
+    const runs = ok.map((b, i) => {
+      const c = coarse[i];
+      return compareRun(b.doc, b.model, results[i], { coarse: c ? { model: c, result: results[nextCoarse++] } : null });
+    });
     let next = 0;
-    const outcomes: CompareOutcome[] = built.map((b) => (b.ok ? { kind: 'done', ...compareRun(b.doc, b.model, results[next++]) } : { kind: 'invalid', issues: b.issues }));
+    const outcomes: CompareOutcome[] = built.map((b) => (b.ok ? { kind: 'done', ...runs[next++] } : { kind: 'invalid', issues: b.issues }));
     const buffers = outcomes.flatMap((o) => (o.kind === 'done' ? [o.series.hours.buffer, o.series.insideSurface.buffer, o.series.insideFlux.buffer] : [])) as ArrayBuffer[];
     return Comlink.transfer(outcomes, buffers);
   },
@@ -68,7 +77,7 @@ export const compareApi = {
       return { ok: true as const, doc: perturbed, model };
     });
     const results = simulateBatch(runs.map((r) => r.model), { storeProfiles: false, onProgress, progressEvery: progressEvery(runs.map((r) => r.model)) });
-    return runs.map((r, i) => metricsOf(compareRun(r.doc, r.model, results[i], false).figures));
+    return runs.map((r, i) => metricsOf(compareRun(r.doc, r.model, results[i], { moisture: false, withSeries: false }).figures));
   },
 
   /** answers at once: proves the worker is up and its modules are loaded */

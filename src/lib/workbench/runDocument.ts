@@ -2,10 +2,11 @@
 // reported days into flat Float64Arrays (so a worker can transfer them) and compute the
 // figures. pure: the worker, the report page and the tests all call this.
 import { formatPath, parseModel, type ModelData } from '../schemas/model.ts';
-import { workbenchDocumentSchema, toModel, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench.ts';
+import { workbenchDocumentSchema, toModel, effectiveWarmupDays, isRepeatingExposure, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench.ts';
 import { simulate, SimulationCancelled, analyse, compileSignal, signalAt, solAirTemperature } from '../thermal/index.ts';
-import type { Figures as AnalyticFigures } from '../thermal/types.ts';
-import { figures, type RunFigures } from './figures.ts';
+import type { Figures as AnalyticFigures, Result } from '../thermal/types.ts';
+import { figures, type AccuracyEstimate, type RunFigures } from './figures.ts';
+import { assessDocument, moistureFigures } from '../moisture/index.ts';
 
 const DAY = 86400;
 
@@ -73,8 +74,26 @@ export function transferables(outcome: RunOutcome): ArrayBuffer[] {
   return Object.values(outcome.series).map((a: Float64Array) => a.buffer as ArrayBuffer);
 }
 
-/** runs a workbench document (the upload is needed when the outdoor air is an uploaded series) */
-export function runDocument(input: unknown, upload?: UploadedSeries | null, options: RunOptions = {}): RunOutcome {
+/** a document simulated: the engine's model and whole result (warm-up included) beside the figures */
+export interface DocumentRun {
+  kind: 'done';
+  doc: WorkbenchDocument;
+  model: ModelData;
+  result: Result;
+  figures: RunFigures;
+  /** s: where the reported days start in the run */
+  reportStart: number;
+  /** the sol-air temperature at the result's output times (the air without sun or sky) */
+  solAir: Float64Array;
+  interfaceNames: string[];
+}
+
+/**
+ * Validates and simulates a workbench document the way the workbench does (the run, its
+ * coarse twin for the accuracy estimate, and for an upload a second start), and computes
+ * the figures. The command line prints what this returns; runDocument() packs it for the worker.
+ */
+export function simulateDocument(input: unknown, upload?: UploadedSeries | null, options: RunOptions = {}): DocumentRun | RunInvalid | RunCancelled {
   const parsedDoc = workbenchDocumentSchema.safeParse(input);
   if (!parsedDoc.success) {
     return { kind: 'invalid', issues: parsedDoc.error.issues.map((i) => `${formatPath(i.path)}: ${i.message}`) };
@@ -88,44 +107,38 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
   const model = parsed.model;
 
   const steps = Math.ceil(model.duration / model.timeStep - 1e-9);
-  let result;
-  try {
-    result = simulate(model, {
-      onProgress: options.onProgress,
+  const repeating = isRepeatingExposure(doc.exposure);
+  // the share of the work each run takes, for one progress bar over all of them
+  const coarseShare = 0.15;
+  const otherShare = repeating ? 0 : 0.45;
+  const mainShare = 1 - coarseShare - otherShare;
+  const progress = (from: number, share: number) => (options.onProgress ? (f: number) => options.onProgress!(from + share * f) : undefined);
+  const run = (m: ModelData, from: number, share: number) =>
+    simulate(m, {
+      onProgress: progress(from, share),
       shouldCancel: options.shouldCancel,
       // about a hundred progress reports, never fewer than 256 steps apart
       progressEvery: Math.max(256, Math.ceil(steps / 100)),
     });
+  let result: Result;
+  let coarse: Result | null = null;
+  let coarseModel: ModelData | null = null;
+  let other: Result | null = null;
+  try {
+    result = run(model, 0, mainShare);
+    coarseModel = coarserModel(model);
+    coarse = coarseModel ? run(coarseModel, mainShare, coarseShare) : null;
+    if (!repeating) other = run(otherStartModel(model), mainShare + coarseShare, otherShare);
   } catch (e) {
     if (e instanceof SimulationCancelled) return { kind: 'cancelled' };
     throw e;
   }
 
   const s = result.series;
-  const reportStart = doc.exposure.warmupDays * DAY;
-  let first = 0;
-  while (first < s.time.length && s.time[first] < reportStart - 1e-6) first++;
-  const nTimes = s.time.length - first;
-  const nNodes = result.mesh.x.length;
-  const nInterfaces = s.interfaces.length;
-
-  const slice = (a: number[]): Float64Array => Float64Array.from(a.slice(first));
-  const time = new Float64Array(nTimes);
-  for (let k = 0; k < nTimes; k++) time[k] = s.time[first + k] - reportStart;
-
-  // sol-air: air + absorptance · irradiance · R_se, from the model's own signals
+  const reportStart = effectiveWarmupDays(doc.exposure) * DAY;
+  // sol-air: air + R_se · (absorptance · irradiance − long-wave loss), from the model's own signals
   const solarFull = solAirSeries(model, s.time, s.outsideAir);
-  const solAir = Float64Array.from(solarFull.subarray(first));
-
-  const interfaces = new Float64Array(nInterfaces * nTimes);
-  for (let j = 0; j < nInterfaces; j++) interfaces.set(s.interfaces[j].slice(first), j * nTimes);
-  const profiles = new Float64Array(nTimes * nNodes);
-  for (let k = 0; k < nTimes; k++) profiles.set(result.profiles[first + k], k * nNodes);
-
   const interfaceNames = doc.layers.slice(1).map((l, j) => `${doc.layers[j].name} / ${l.name}`);
-  const layerBounds = [0];
-  for (const l of doc.layers) layerBounds.push(layerBounds[layerBounds.length - 1] + l.thickness);
-
   const out = doc.exposure.outdoor;
   const runFigures = figures({
     time: s.time,
@@ -140,14 +153,45 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
     interfaceNames,
     uValue: result.steady.uValue,
     analytic: result.periodic,
-    energyBalanceError: result.energy.balanceError,
+    bookkeepingClosure: result.energy.balanceError,
     cells: result.stats.cells,
     timeStep: model.timeStep,
     maxCellSize: doc.exposure.maxCellSize,
-    indoorRelativeHumidity: doc.exposure.indoorRelativeHumidity,
-    outdoorPeriodic: out.mode !== 'series',
+    moisture: moistureOf(doc),
+    outdoorPeriodic: repeating && out.mode !== 'series',
+    scheme: schemeOf(result),
+    accuracy: coarse && coarseModel ? accuracyOf(s.time, s.insideFlux, reportStart, coarse, coarseModel) : null,
+    otherStartInsideFlux: other ? other.series.insideFlux : null,
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
+  return { kind: 'done', doc, model, result, figures: runFigures, reportStart, solAir: solarFull, interfaceNames };
+}
+
+/** runs a workbench document (the upload is needed when the outdoor air is an uploaded series) and packs the reported days for the worker */
+export function runDocument(input: unknown, upload?: UploadedSeries | null, options: RunOptions = {}): RunOutcome {
+  const run = simulateDocument(input, upload, options);
+  if (run.kind !== 'done') return run;
+  const { doc, model, result, reportStart, interfaceNames, figures: runFigures } = run;
+  const s = result.series;
+  let first = 0;
+  while (first < s.time.length && s.time[first] < reportStart - 1e-6) first++;
+  const nTimes = s.time.length - first;
+  const nNodes = result.mesh.x.length;
+  const nInterfaces = s.interfaces.length;
+
+  const slice = (a: number[]): Float64Array => Float64Array.from(a.slice(first));
+  const time = new Float64Array(nTimes);
+  for (let k = 0; k < nTimes; k++) time[k] = s.time[first + k] - reportStart;
+
+  const solAir = Float64Array.from(run.solAir.subarray(first));
+
+  const interfaces = new Float64Array(nInterfaces * nTimes);
+  for (let j = 0; j < nInterfaces; j++) interfaces.set(s.interfaces[j].slice(first), j * nTimes);
+  const profiles = new Float64Array(nTimes * nNodes);
+  for (let k = 0; k < nTimes; k++) profiles.set(result.profiles[first + k], k * nNodes);
+
+  const layerBounds = [0];
+  for (const l of doc.layers) layerBounds.push(layerBounds[layerBounds.length - 1] + l.thickness);
 
   return {
     kind: 'done',
@@ -177,14 +221,80 @@ export function runDocument(input: unknown, upload?: UploadedSeries | null, opti
   };
 }
 
+/** the ISO 13788 check of the document's layers under its monthly climate; null without a climate or a μ */
+function moistureOf(doc: WorkbenchDocument) {
+  const a = assessDocument(doc);
+  return a ? moistureFigures(a) : null;
+}
+
 /** the sol-air temperature at the output times (equals the outside air without sun); compare reuses it */
 export function solAirSeries(model: ModelData, time: number[], air: number[]): Float64Array {
   const out = Float64Array.from(air);
   const solar = model.outside.solar;
-  if (!solar || model.outside.surfaceResistance === 0) return out;
-  const irradiance = compileSignal(solar.irradiance);
+  const longWave = model.outside.longWave;
+  if ((!solar && !longWave) || model.outside.surfaceResistance === 0) return out;
+  const irradiance = solar ? compileSignal(solar.irradiance) : null;
+  const netLoss = longWave ? compileSignal(longWave.netLoss) : null;
   for (let k = 0; k < time.length; k++) {
-    out[k] = solAirTemperature(air[k], solar.absorptance, signalAt(irradiance, time[k]), model.outside.surfaceResistance);
+    out[k] = solAirTemperature(air[k], solar?.absorptance ?? 0, irradiance ? signalAt(irradiance, time[k]) : 0, model.outside.surfaceResistance, netLoss ? signalAt(netLoss, time[k]) : 0);
   }
   return out;
+}
+
+/** the same run at twice the step and twice the largest cell (outputs on a grid both runs share); null when the step cannot double */
+export function coarserModel(model: ModelData): ModelData | null {
+  const timeStep = model.timeStep * 2;
+  if (timeStep > model.duration) return null;
+  const interval = lcm(Math.round(model.outputInterval), Math.round(timeStep));
+  if (interval > model.duration) return null;
+  return { ...model, timeStep, outputInterval: interval, mesh: { ...model.mesh, maxCellSize: model.mesh.maxCellSize * 2, minCellsPerLayer: Math.max(2, Math.floor(model.mesh.minCellsPerLayer / 2)) } };
+}
+
+/** the same run from a uniform start at the mean of the two air temperatures at time zero (a start as wrong as a plausible guess) */
+function otherStartModel(model: ModelData): ModelData {
+  const outside = compileSignal(model.outside.air);
+  const inside = compileSignal(model.inside.air);
+  const temperature = (signalAt(outside, 0) + signalAt(inside, 0)) / 2;
+  return { ...model, initial: { kind: 'uniform', temperature } };
+}
+
+function gcd(a: number, b: number): number {
+  while (b) [a, b] = [b, a % b];
+  return a;
+}
+const lcm = (a: number, b: number) => (a / gcd(a, b)) * b;
+
+/** the largest difference of the inside flux between the run and its coarse twin over the reported days, absolute and relative to the amplitude */
+export function accuracyOf(time: number[], insideFlux: number[], reportStart: number, coarse: Result, coarseModel: ModelData): AccuracyEstimate {
+  const byTime = new Map<number, number>();
+  for (let k = 0; k < time.length; k++) if (time[k] >= reportStart - 1e-6) byTime.set(Math.round(time[k]), insideFlux[k]);
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of byTime.values()) {
+    lo = Math.min(lo, v);
+    hi = Math.max(hi, v);
+  }
+  let maxDifference = 0;
+  const c = coarse.series;
+  for (let k = 0; k < c.time.length; k++) {
+    const fine = byTime.get(Math.round(c.time[k]));
+    if (fine !== undefined) maxDifference = Math.max(maxDifference, Math.abs(fine - c.insideFlux[k]));
+  }
+  const amplitude = Math.max((hi - lo) / 2, 1e-3);
+  return { maxDifference, relative: maxDifference / amplitude, coarseTimeStep: coarseModel.timeStep, coarseCells: coarse.stats.cells };
+}
+
+/** the scheme as the engine ran it, from its stats: whole steps of the scheme and the start-up sub-steps after jumps */
+export function schemeOf(result: Result): string {
+  const a = result.stats.scheme;
+  const name = a.scheme === 'implicit' ? 'backward Euler' : 'Crank–Nicolson';
+  const parts = [`${a.fullSteps} ${name} steps`];
+  if (a.restarts > 0) {
+    const sub: string[] = [];
+    if (a.backwardEulerSubSteps > 0) sub.push(`${a.backwardEulerSubSteps} backward-Euler quarter steps`);
+    if (a.crankNicolsonSubSteps > 0) sub.push(`${a.crankNicolsonSubSteps} Crank–Nicolson half steps`);
+    parts.push(`${a.restarts} start-up${a.restarts > 1 ? 's' : ''} after jumps (${sub.join(', ')})`);
+  }
+  if (result.stats.periodicStart) parts.push('periodic start');
+  return parts.join(', ');
 }

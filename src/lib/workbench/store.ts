@@ -90,7 +90,7 @@ export function newLayerId(): string {
 }
 
 const emptyDoc = (): WorkbenchDocument => ({
-  version: 1,
+  version: 2,
   layers: [],
   exposure: defaultExposure(),
 });
@@ -305,7 +305,7 @@ export function selectFigures(state: Pick<WorkbenchState, 'doc'>): Figures | nul
       layers,
       outside: {
         surfaceResistance: exposure.outsideSurfaceResistance,
-        air: out.mode === 'series' ? { kind: 'constant', value: 0 } : { kind: 'sine', mean: out.mean, amplitude: out.swing / 2, period: 86400, peakTime: out.peakHour * 3600 },
+        air: out.mode === 'series' ? { kind: 'constant', value: 0 } : { kind: 'sine', mean: out.mean, amplitude: out.amplitude, period: 86400, peakTime: out.peakHour * 3600 },
       },
       inside: { surfaceResistance: exposure.insideSurfaceResistance, air: { kind: 'constant', value: 20 } },
       mesh: { maxCellSize: exposure.maxCellSize, minCellsPerLayer: 4 },

@@ -4,7 +4,7 @@ import { defaultExposure, type WorkbenchDocument } from '../../../src/lib/schema
 
 // the worker's API called directly in node, without a Worker: the same object comlink exposes
 const wall = (days: number, warmupDays: number): WorkbenchDocument => ({
-  version: 1,
+  version: 2,
   layers: [
     { id: 'r', name: 'Lime render', materialRef: null, materialClass: 'render', thickness: 0.02, conductivity: 0.8, density: 1600, specificHeat: 1000, vapourResistanceFactor: null, source: 'typical value', note: '' },
     { id: 'b', name: 'Clay brick', materialRef: null, materialClass: 'masonry', thickness: 0.215, conductivity: 0.77, density: 1700, specificHeat: 800, vapourResistanceFactor: null, source: 'typical value', note: '' },

@@ -20,7 +20,7 @@ const layer = (id: string, name: string, thickness: number, conductivity: number
 
 // a heavy wall with the insulation on the inside: the case a person reorders first
 const doc = (): WorkbenchDocument => ({
-  version: 1,
+  version: 2,
   layers: [
     layer('brick', 'Clay brick', 0.215, 0.77, 1700, 800, 'masonry'),
     layer('wool', 'Mineral wool', 0.1, 0.036, 100, 1030, 'insulation'),
@@ -219,7 +219,7 @@ describe('undo and redo', () => {
 
   it('undoes exposure changes too', () => {
     s().setExposure({ insideSurfaceResistance: 0.17 });
-    s().setOutdoor({ mode: 'sine', mean: 18, swing: 10, peakHour: 14 });
+    s().setOutdoor({ mode: 'sine', mean: 18, amplitude: 5, peakHour: 14 });
     s().setIndoor({ mode: 'constant', value: 21 });
     expect(s().doc.exposure).toMatchObject({ insideSurfaceResistance: 0.17, outdoor: { mean: 18 }, indoor: { value: 21 } });
     s().undo();

@@ -3,6 +3,7 @@ import type { Database } from '../db/client';
 import { assemblies, jobs, revisions } from '../db/schema';
 import { builtinMaterial } from '../../materials/builtin';
 import { defaultExposure, workbenchDocumentSchema, type DocLayer, type WorkbenchDocument } from '../../schemas/workbench';
+import { demoClimate } from '../../moisture/index.ts';
 
 export const DEMO_JOB_NAME = 'Harrow Lane Library re-cladding';
 
@@ -25,7 +26,9 @@ function layer(id: string, key: string, thicknessMm: number, note = ''): DocLaye
   };
 }
 
-const doc = (layers: DocLayer[]): WorkbenchDocument => workbenchDocumentSchema.parse({ version: 1, layers, exposure: defaultExposure() });
+/** every demo build-up carries the Harrow Lane monthly climate of our own scenario, for the moisture check */
+const doc = (layers: DocLayer[]): WorkbenchDocument =>
+  workbenchDocumentSchema.parse({ version: 2, layers, exposure: { ...defaultExposure(), climate: demoClimate('harrow-lane') } });
 
 /** three contrasting build-ups for the fictional 1970s library: heavy, light, and a thin metal panel */
 export const DEMO_ASSEMBLIES: { name: string; element: 'wall' | 'roof'; description: string; note: string; doc: WorkbenchDocument }[] = [
@@ -69,7 +72,38 @@ export const DEMO_ASSEMBLIES: { name: string; element: 'wall' | 'roof'; descript
   },
 ];
 
-/** one job with three assemblies, each with revision 1; creates only what is missing */
+const VENTILATED_CLADDING_NOTE =
+  'Sheathing behind a ventilated batten space and cladding: the cladding and the ventilated space are left out of the layers, as ISO 6946 and ISO 13788 allow for a well-ventilated air layer.';
+const STUDS_NOTE = 'Glass wool between 140 mm studs at 600 mm centres, treated as one homogeneous layer (the studs, about 10 % of the area, are left out).';
+
+/**
+ * the timber-frame pair of the moisture check: the same stair-tower panel with plywood sheathing
+ * outside, first without a vapour control layer (water accumulates at the cold plywood face under
+ * the Harrow Lane climate: fails) and then with a polyethylene one behind the plasterboard (passes)
+ */
+export const DEMO_MOISTURE_ASSEMBLIES: typeof DEMO_ASSEMBLIES = [
+  {
+    name: 'Stair tower, timber frame without vapour control layer',
+    element: 'wall',
+    description: 'Plywood-sheathed timber frame with no vapour control layer: the option the moisture check rules out.',
+    note: 'Moisture option A: plywood sheathing, glass wool, plasterboard; no vapour control layer.',
+    doc: doc([layer('tv-ply', 'plywood-500', 18, VENTILATED_CLADDING_NOTE), layer('tv-wool', 'mineral-wool-glass-20', 140, STUDS_NOTE), layer('tv-board', 'gypsum-plasterboard-700', 12.5)]),
+  },
+  {
+    name: 'Stair tower, timber frame with vapour control layer',
+    element: 'wall',
+    description: 'The same panel with a polyethylene vapour control layer on the warm side of the insulation.',
+    note: 'Moisture option B: as option A with a 0.2 mm polyethylene vapour control layer behind the plasterboard, joints taped.',
+    doc: doc([
+      layer('tc-ply', 'plywood-500', 18, VENTILATED_CLADDING_NOTE),
+      layer('tc-wool', 'mineral-wool-glass-20', 140, STUDS_NOTE),
+      layer('tc-vcl', 'polyethylene-vcl-980', 0.2),
+      layer('tc-board', 'gypsum-plasterboard-700', 12.5),
+    ]),
+  },
+];
+
+/** one job with the demo assemblies (three contrasting build-ups and the timber-frame moisture pair), each with revision 1; creates only what is missing */
 export async function seedDemoJob(db: Database, teamId: number, authorId: string | null): Promise<number> {
   let jobId: number;
   const existing = await db.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.teamId, teamId), eq(jobs.name, DEMO_JOB_NAME))).limit(1);
@@ -90,7 +124,7 @@ export async function seedDemoJob(db: Database, teamId: number, authorId: string
       .$returningId();
     jobId = job.id;
   }
-  for (const a of DEMO_ASSEMBLIES) {
+  for (const a of [...DEMO_ASSEMBLIES, ...DEMO_MOISTURE_ASSEMBLIES]) {
     const found = await db.select({ id: assemblies.id }).from(assemblies).where(and(eq(assemblies.jobId, jobId), eq(assemblies.name, a.name))).limit(1);
     let assemblyId = found[0]?.id;
     if (!assemblyId) {

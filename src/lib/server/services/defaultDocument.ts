@@ -45,7 +45,7 @@ const DIRECTION = { wall: 'horizontal', roof: 'upward', floor: 'downward' } as c
 export function defaultDocument(element: Element): WorkbenchDocument {
   const direction = DIRECTION[element];
   return {
-    version: 1,
+    version: 2,
     layers: LAYERS[element](),
     exposure: { ...defaultExposure(), heatFlowDirection: direction, insideSurfaceResistance: ISO6946_RSI[direction] },
   };
