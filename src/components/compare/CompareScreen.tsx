@@ -3,7 +3,7 @@
 // the figures table with the best of each row and the difference to a baseline, the sections to
 // one scale, and the sensitivity of each
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { defaultExposure, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
+import { defaultExposure, effectiveWarmupDays, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
 import { CompareRunner } from '../../lib/workbench/compareRunner';
 import type { CompareOutcome } from '../../lib/workbench/compareApi';
 import type { CompareFigures, CompareSeries } from '../../lib/workbench/compare';
@@ -14,6 +14,7 @@ import CompareTable from './CompareTable';
 import OverlayCharts from './OverlayCharts';
 import SensitivityPanel, { type SensitivityResult } from './SensitivityPanel';
 import { alternativeColour, ALTERNATIVE_STYLE } from './palette';
+import ProgressBar, { ProgressSignal } from './Progress';
 
 const STATE_LABEL: Record<string, string> = { draft: 'draft', in_check: 'in check', checked: 'checked', sent_back: 'sent back', issued: 'issued' };
 const MAX_PICKS = 4;
@@ -123,7 +124,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
   const [upload, setUpload] = useState<{ id: number; series: UploadedSeries } | null>(null);
   const [uploadError, setUploadError] = useState<string | null>(null);
   const [running, setRunning] = useState(false);
-  const [progress, setProgress] = useState(0);
+  const progress = useRef(new ProgressSignal()).current;
   const [ran, setRan] = useState<Ran | null>(null);
   const [runError, setRunError] = useState<string | null>(null);
   const [sensitivity, setSensitivity] = useState<Record<number, SensitivityResult>>({});
@@ -212,7 +213,8 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
   // the documents as compared: each build-up under the one exposure
   const docs = useMemo(() => (exposure ? picked.map((s) => (s.doc ? { ...s.doc, exposure } : null)) : []), [picks.join(','), sources, exposure]); // eslint-disable-line react-hooks/exhaustive-deps
   const ready = exposure !== null && docs.length > 0 && docs.every((d) => d !== null) && (uploadId === null || uploadSeries !== null);
-  const totalDays = exposure ? exposure.days + exposure.warmupDays : 0;
+  // the days the run really steps: repeating days start periodic, only an upload warms up
+  const totalDays = exposure ? exposure.days + effectiveWarmupDays(exposure) : 0;
 
   // keep the choice in the address, so the view can be reopened or sent to a colleague of the team
   useEffect(() => {
@@ -234,25 +236,15 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
     const names = labels;
     setRunning(true);
     setRunError(null);
-    setProgress(0);
-    let pending = -1;
-    let frame = 0;
+    progress.reset();
     const t0 = performance.now();
     const job = r.compare(
       list.map((doc) => ({ doc, upload: uploadSeries })),
-      (f) => {
-        pending = f;
-        if (!frame)
-          frame = requestAnimationFrame(() => {
-            frame = 0;
-            setProgress(pending);
-          });
-      },
+      (f) => progress.set(f),
     );
     cancelRef.current = job.cancel;
     job.result
       .then((outcomes) => {
-        if (frame) cancelAnimationFrame(frame);
         if (!outcomes) return;
         setRan({ docs: list, labels: names, outcomes, ms: performance.now() - t0 });
         setRunning(false);
@@ -417,10 +409,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
           </button>
           {running ? (
             <span className="flex items-center gap-2" data-testid="compare-progress">
-              <span role="progressbar" aria-label="Comparison progress" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(progress * 100)} className="block h-2 w-40 overflow-hidden rounded bg-line">
-                <span className="block h-full bg-accent" style={{ width: `${Math.round(progress * 100)}%` }} />
-              </span>
-              <span className="w-10 tabular text-ink-soft">{Math.round(progress * 100)} %</span>
+              <ProgressBar signal={progress} label="Comparison progress" />
               <button type="button" className="rounded border border-line bg-panel px-2 py-1 hover:bg-paper" onClick={cancel}>
                 Cancel
               </button>
@@ -476,7 +465,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
             {picked.map((s, i) =>
               s.doc ? (
                 <div key={`${i}-${s.revision.id}`} className="flex flex-col items-center">
-                  <span className="mb-1 inline-flex max-w-40 items-center gap-1.5 text-center text-xs font-semibold">
+                  <span className="mb-1 inline-flex h-12 max-w-40 items-start gap-1.5 text-center text-xs font-semibold" title={labels[i]}>
                     <span aria-hidden="true" className="inline-block h-2.5 w-4 shrink-0 rounded-sm" style={{ background: alternativeColour(i) }} />
                     {labels[i]}
                   </span>
