@@ -255,7 +255,7 @@ async function sensitivityBench(
     return res.json();
   };
   const made = await post(`/api/jobs/${jobId}/assemblies`, { name: `Bench ten-layer wall ${Date.now()}`, element: 'wall', description: 'made by npm run bench' });
-  const sine = { version: 1, layers: tenLayerWall(), exposure: { ...defaultExposure(), days: 3, warmupDays: 0 } };
+  const sine = { version: 2, layers: tenLayerWall(), exposure: { ...defaultExposure(), days: 3, warmupDays: 0 } };
   const r2 = (await post(`/api/assemblies/${made.assembly.id}/revisions`, { baseRevisionId: made.revision.id, model: sine, note: 'bench: 3-day sine' })).revision;
   const year = { ...sine, exposure: { ...sine.exposure, outdoor: { mode: 'series', uploadId, absorptance: 0.6 }, days: 365, warmupDays: 0 } };
   const r3 = (await post(`/api/assemblies/${made.assembly.id}/revisions`, { baseRevisionId: r2.id, model: year, note: 'bench: a year of hourly weather' })).revision;

@@ -4,7 +4,8 @@ import type { Page } from 'playwright-core';
 import Papa from 'papaparse';
 import { useBrowser, openPage, outsideRequests, screenshot, ARTIFACTS } from '../support/browser';
 import { demoAssembly, testDb, eq } from '../support/db';
-import { assemblies } from '../../src/lib/server/db/schema';
+import { desc } from 'drizzle-orm';
+import { assemblies, revisions } from '../../src/lib/server/db/schema';
 import { DEMO_ASSEMBLIES } from '../../src/lib/server/seed/demoJob';
 
 const browser = useBrowser();
@@ -15,13 +16,24 @@ interface Shown {
   decrementFactor: number;
   timeLag: number;
   peakGain: number;
+  peakLoss: number;
+  heatLost: number;
+  accuracy: number;
 }
 
 const ids: Record<string, number> = {};
+/** the newest revision of each demo assembly */
+const heads: Record<string, number> = {};
 let jobId: number;
+/** the three contrasting build-ups of the demo job (heavy, light, thin metal) */
+const THREE = DEMO_ASSEMBLIES.slice(0, 3).map((a) => a.name);
 
 beforeAll(async () => {
-  for (const a of DEMO_ASSEMBLIES) ids[a.name] = await demoAssembly(a.name);
+  for (const a of DEMO_ASSEMBLIES) {
+    ids[a.name] = await demoAssembly(a.name);
+    const [r] = await testDb().select({ id: revisions.id }).from(revisions).where(eq(revisions.assemblyId, ids[a.name])).orderBy(desc(revisions.number)).limit(1);
+    heads[a.name] = r.id;
+  }
   const [row] = await testDb().select({ jobId: assemblies.jobId }).from(assemblies).where(eq(assemblies.id, ids[DEMO_ASSEMBLIES[0].name])).limit(1);
   jobId = row.jobId;
 });
@@ -40,8 +52,10 @@ async function workbenchFigures(page: Page, name: string): Promise<Shown> {
     uValue: num(await cell('uValue', 'analytic')),
     decrementFactor: num(await cell('decrementFactor', 'simulated')),
     timeLag: num(await cell('timeLag', 'simulated')),
-    // the compare table's peak heat gain is the workbench's peak inside flux, or 0 when the flux never enters the room
-    peakGain: Math.max(0, num(await cell('peakInsideFlux', 'simulated'))),
+    peakGain: num(await cell('peakHeatGain', 'simulated')),
+    peakLoss: num(await cell('peakHeatLoss', 'simulated')),
+    heatLost: num(await cell('totalHeatLost', 'simulated')),
+    accuracy: num(await cell('accuracyEstimate', 'simulated')),
   };
 }
 
@@ -51,35 +65,46 @@ describe('Compare page', () => {
   it('compares the three demo assemblies: figures equal to the workbench’s, the best of each row marked, differences to the chosen baseline', async () => {
     const { page, context, requests, errors } = await openPage(browser(), { userId: 'demo-checker' });
     const shown: Shown[] = [];
-    for (const a of DEMO_ASSEMBLIES) shown.push(await workbenchFigures(page, a.name));
+    for (const name of THREE) shown.push(await workbenchFigures(page, name));
 
-    // from the job page's link
+    // the job page links to the compare page, which starts with the newest revision of the first four assemblies
     await page.goto(`/jobs/${jobId}`);
     await page.getByTestId('compare-link').click();
     await page.waitForURL(/\/jobs\/\d+\/compare/);
+    await page.getByTestId('compare-table').waitFor();
+    await expect(page.getByTestId('picks').locator('select').count()).resolves.toBe(4);
+
+    // the three contrasting build-ups, chosen by their revisions
+    await page.goto(`/jobs/${jobId}/compare?r=${THREE.map((n) => heads[n]).join(',')}`);
     const table = page.getByTestId('compare-table');
     await table.waitFor();
-    // the three assemblies, newest revision each, ordered by name
     const headers = await table.locator('thead th[data-alt]').allTextContents();
     expect(headers).toHaveLength(3);
-    const order = [...DEMO_ASSEMBLIES.map((a) => a.name)].sort();
-    order.forEach((name, i) => expect(headers[i]).toContain(name));
-    const byColumn = order.map((name) => shown.find((s) => s.name === name)!);
+    THREE.forEach((name, i) => expect(headers[i]).toContain(name));
+    const byColumn = shown;
 
-    const rows: { key: string; field: keyof Shown; digits: number; best: 'low' | 'high' }[] = [
+    const rows: { key: string; field: keyof Shown; digits: number; best: 'low' | 'high' | null }[] = [
       { key: 'uValue', field: 'uValue', digits: 3, best: 'low' },
       { key: 'decrementFactor', field: 'decrementFactor', digits: 3, best: 'low' },
       { key: 'timeLag', field: 'timeLag', digits: 2, best: 'high' },
       { key: 'peakGain', field: 'peakGain', digits: 2, best: 'low' },
+      { key: 'peakLoss', field: 'peakLoss', digits: 2, best: 'low' },
+      { key: 'heatLost', field: 'heatLost', digits: 3, best: 'low' },
+      { key: 'accuracy', field: 'accuracy', digits: 2, best: null },
     ];
     const cells = (key: string) => table.locator(`tr[data-row="${key}"] td[data-alt]`);
     for (const r of rows) {
       const values = (await cells(r.key).evaluateAll((tds) => tds.map((td) => td.getAttribute('data-value')))).map(num);
       // the same runs as the workbench (same document, same exposure): the same shown numbers
       expect(values, r.key).toEqual(byColumn.map((s) => s[r.field]));
-      const target = r.best === 'low' ? Math.min(...values) : Math.max(...values);
       const marks = await cells(r.key).evaluateAll((tds) => tds.map((td) => td.getAttribute('data-best')));
-      expect(marks, r.key).toEqual(values.map((v) => (v === target ? 'true' : 'false')));
+      if (!r.best) {
+        expect(marks, r.key).toEqual(values.map(() => 'false'));
+        continue;
+      }
+      const target = r.best === 'low' ? Math.min(...values) : Math.max(...values);
+      // all equal: no mark; else the best (ties included)
+      expect(marks, r.key).toEqual(values.map((v) => (v === target && !values.every((x) => x === target) ? 'true' : 'false')));
     }
     // what "best" means is said in the row's tooltip
     await expect(table.locator('tr[data-row="decrementFactor"] [role="tooltip"]').textContent()).resolves.toMatch(/Lowest is best/);
@@ -87,7 +112,7 @@ describe('Compare page', () => {
     // baseline: the second alternative; every other column shows its difference to it
     await page.getByTestId('baseline-1').check();
     await expect.poll(() => page.url()).toMatch(/base=1/);
-    for (const r of rows) {
+    for (const r of rows.filter((x) => x.best)) {
       const deltas = await cells(r.key).evaluateAll((tds) => tds.map((td) => td.querySelector('[data-delta]')?.getAttribute('data-delta') ?? null));
       expect(deltas[1]).toBeNull();
       for (const i of [0, 2]) {
@@ -106,13 +131,21 @@ describe('Compare page', () => {
     // the overlaid traces: one line per alternative in each chart's legend
     for (const chart of ['compare-trace-surface', 'compare-trace-flux']) {
       const legend = await page.getByTestId(chart).locator('.u-legend .u-series th').allTextContents();
-      for (const name of order) expect(legend.join('|')).toContain(name);
+      for (const name of THREE) expect(legend.join('|')).toContain(name);
     }
     await expect(page.getByTestId('compare-sections').locator('[data-testid="section-drawing"]').count()).resolves.toBe(3);
     await screenshot(page, 'compare-page');
     await page.emulateMedia({ media: 'print' });
     await screenshot(page, 'compare-page-print');
     await page.emulateMedia({ media: 'screen' });
+
+    // the vapour-control pair under the Harrow Lane climate: the one without the layer carries the ISO 13788 risk
+    const pair = ['Stair tower, timber frame without vapour control layer', 'Stair tower, timber frame with vapour control layer'];
+    await page.goto(`/jobs/${jobId}/compare?r=${pair.map((n) => heads[n]).join(',')}`);
+    await table.waitFor();
+    const risk = await table.locator('tr[data-row="moisture"] td[data-alt]').evaluateAll((tds) => tds.map((td) => td.getAttribute('data-risk')));
+    expect(risk).toEqual(['true', 'false']);
+    await expect(page.getByTestId('glance-moisture').textContent()).resolves.toContain(pair[0]);
 
     expect(outsideRequests(requests)).toEqual([]);
     expect(errors).toEqual([]);
@@ -126,11 +159,11 @@ describe('Compare page', () => {
       w.__longTasks = [];
       new PerformanceObserver((l) => l.getEntries().forEach((e) => w.__longTasks.push(e.duration))).observe({ type: 'longtask', buffered: true });
     });
-    await page.goto(`/jobs/${jobId}/compare`);
+    await page.goto(`/jobs/${jobId}/compare?r=${THREE.map((n) => heads[n]).join(',')}`);
     const panel = page.getByTestId('sensitivity');
     await page.getByTestId('compare-table').waitFor();
     // the heavy wall, ±10 %
-    const heavy = [...DEMO_ASSEMBLIES.map((a) => a.name)].sort().indexOf(DEMO_ASSEMBLIES[0].name);
+    const heavy = THREE.indexOf(DEMO_ASSEMBLIES[0].name);
     await panel.getByTestId('sensitivity-which').selectOption(String(heavy));
     const seen: number[] = [];
     const watch = page.evaluate(

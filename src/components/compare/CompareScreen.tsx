@@ -3,7 +3,7 @@
 // the figures table with the best of each row and the difference to a baseline, the sections to
 // one scale, and the sensitivity of each
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { defaultExposure, describeSunAndSky, effectiveWarmupDays, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
+import { defaultExposure, effectiveWarmupDays, exposureSchema, workbenchDocumentSchema, type Exposure, type UploadedSeries, type WorkbenchDocument } from '../../lib/schemas/workbench';
 import { CompareRunner } from '../../lib/workbench/compareRunner';
 import type { CompareOutcome } from '../../lib/workbench/compareApi';
 import type { CompareFigures, CompareSeries } from '../../lib/workbench/compare';
@@ -14,6 +14,7 @@ import CompareTable from './CompareTable';
 import OverlayCharts from './OverlayCharts';
 import SensitivityPanel, { type SensitivityResult } from './SensitivityPanel';
 import { alternativeColour, ALTERNATIVE_STYLE } from './palette';
+import ProgressBar, { ProgressSignal } from './Progress';
 
 const STATE_LABEL: Record<string, string> = { draft: 'draft', in_check: 'in check', checked: 'checked', sent_back: 'sent back', issued: 'issued' };
 const MAX_PICKS = 4;
@@ -55,7 +56,7 @@ interface CustomExposure {
 
 const CUSTOM_FIELDS: { key: keyof CustomExposure; label: string; unit: string; path: string }[] = [
   { key: 'mean', label: 'Daily mean', unit: '°C', path: 'outdoor.mean' },
-  { key: 'amplitude', label: 'Amplitude (half the daily swing)', unit: 'K', path: 'outdoor.amplitude' },
+  { key: 'amplitude', label: 'Daily amplitude', unit: 'K', path: 'outdoor.amplitude' },
   { key: 'peakHour', label: 'Hour of the peak', unit: 'h', path: 'outdoor.peakHour' },
   { key: 'indoor', label: 'Indoor air', unit: '°C', path: 'indoor.value' },
   { key: 'days', label: 'Days to report', unit: 'd', path: 'days' },
@@ -63,8 +64,8 @@ const CUSTOM_FIELDS: { key: keyof CustomExposure; label: string; unit: string; p
 
 function customFrom(e: Exposure): CustomExposure {
   const o = e.outdoor;
-  const d = defaultExposure();
-  const sine = o.mode === 'sine' || o.mode === 'solair' ? o : (d.outdoor as { mean: number; amplitude: number; peakHour: number });
+  const d = defaultExposure().outdoor as { mean: number; amplitude: number; peakHour: number };
+  const sine = o.mode === 'sine' || o.mode === 'solair' ? o : d;
   return {
     mean: String(sine.mean),
     amplitude: String(sine.amplitude),
@@ -75,11 +76,11 @@ function customFrom(e: Exposure): CustomExposure {
 }
 
 /** the custom exposure, or the field messages (each naming the field and its unit) */
-function buildCustom(c: CustomExposure): { ok: true; exposure: Exposure } | { ok: false; fields: Record<string, string> } {
+function buildCustom(c: CustomExposure, from: Exposure): { ok: true; exposure: Exposure } | { ok: false; fields: Record<string, string> } {
   const n = (s: string) => (s.trim() === '' ? NaN : Number(s.replace(',', '.')));
-  const base = defaultExposure();
+  // the rest (surface resistances, step, mesh, humidity and climate) from the exposure it starts from
   const parsed = exposureSchema.safeParse({
-    ...base,
+    ...from,
     outdoor: { mode: 'sine', mean: n(c.mean), amplitude: n(c.amplitude), peakHour: n(c.peakHour) },
     indoor: { mode: 'constant', value: n(c.indoor) },
     days: n(c.days),
@@ -123,7 +124,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
   const [upload, setUpload] = useState<{ id: number; series: UploadedSeries } | null>(null);
   const [uploadError, setUploadError] = useState<string | null>(null);
   const [running, setRunning] = useState(false);
-  const [progress, setProgress] = useState(0);
+  const progress = useRef(new ProgressSignal()).current;
   const [ran, setRan] = useState<Ran | null>(null);
   const [runError, setRunError] = useState<string | null>(null);
   const [sensitivity, setSensitivity] = useState<Record<number, SensitivityResult>>({});
@@ -176,7 +177,8 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
 
   const picked = picks.map((id) => sources.get(id)).filter((s): s is Source => !!s);
   const from = exposureFrom === null ? (picked[0]?.revision.id ?? null) : exposureFrom;
-  const customBuilt = useMemo(() => buildCustom(custom), [custom]);
+  const customBase = useMemo(() => customBaseOf(sources, picked[0]?.revision.id), [sources, picked[0]?.revision.id]); // eslint-disable-line react-hooks/exhaustive-deps
+  const customBuilt = useMemo(() => buildCustom(custom, customBase), [custom, customBase]);
   const exposure: Exposure | null = useMemo(() => {
     if (from === 'custom') return customBuilt.ok ? customBuilt.exposure : null;
     return from !== null ? (sources.get(from)?.doc?.exposure ?? null) : null;
@@ -211,6 +213,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
   // the documents as compared: each build-up under the one exposure
   const docs = useMemo(() => (exposure ? picked.map((s) => (s.doc ? { ...s.doc, exposure } : null)) : []), [picks.join(','), sources, exposure]); // eslint-disable-line react-hooks/exhaustive-deps
   const ready = exposure !== null && docs.length > 0 && docs.every((d) => d !== null) && (uploadId === null || uploadSeries !== null);
+  // the days the run really steps: repeating days start periodic, only an upload warms up
   const totalDays = exposure ? exposure.days + effectiveWarmupDays(exposure) : 0;
 
   // keep the choice in the address, so the view can be reopened or sent to a colleague of the team
@@ -233,25 +236,15 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
     const names = labels;
     setRunning(true);
     setRunError(null);
-    setProgress(0);
-    let pending = -1;
-    let frame = 0;
+    progress.reset();
     const t0 = performance.now();
     const job = r.compare(
       list.map((doc) => ({ doc, upload: uploadSeries })),
-      (f) => {
-        pending = f;
-        if (!frame)
-          frame = requestAnimationFrame(() => {
-            frame = 0;
-            setProgress(pending);
-          });
-      },
+      (f) => progress.set(f),
     );
     cancelRef.current = job.cancel;
     job.result
       .then((outcomes) => {
-        if (frame) cancelAnimationFrame(frame);
         if (!outcomes) return;
         setRan({ docs: list, labels: names, outcomes, ms: performance.now() - t0 });
         setRunning(false);
@@ -416,10 +409,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
           </button>
           {running ? (
             <span className="flex items-center gap-2" data-testid="compare-progress">
-              <span role="progressbar" aria-label="Comparison progress" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(progress * 100)} className="block h-2 w-40 overflow-hidden rounded bg-line">
-                <span className="block h-full bg-accent" style={{ width: `${Math.round(progress * 100)}%` }} />
-              </span>
-              <span className="w-10 tabular text-ink-soft">{Math.round(progress * 100)} %</span>
+              <ProgressBar signal={progress} label="Comparison progress" />
               <button type="button" className="rounded border border-line bg-panel px-2 py-1 hover:bg-paper" onClick={cancel}>
                 Cancel
               </button>
@@ -475,7 +465,7 @@ export default function CompareScreen({ jobId, jobName }: { jobId: number; jobNa
             {picked.map((s, i) =>
               s.doc ? (
                 <div key={`${i}-${s.revision.id}`} className="flex flex-col items-center">
-                  <span className="mb-1 inline-flex max-w-40 items-center gap-1.5 text-center text-xs font-semibold">
+                  <span className="mb-1 inline-flex h-12 max-w-40 items-start gap-1.5 text-center text-xs font-semibold" title={labels[i]}>
                     <span aria-hidden="true" className="inline-block h-2.5 w-4 shrink-0 rounded-sm" style={{ background: alternativeColour(i) }} />
                     {labels[i]}
                   </span>
@@ -506,10 +496,15 @@ function describeExposure(e: Exposure): string {
     o.mode === 'series'
       ? `an uploaded hourly series (absorptance ${o.absorptance})`
       : o.mode === 'solair'
-        ? `a sol-air day: air ${o.mean} °C ± ${o.amplitude} K peaking at ${o.peakHour} h; ${describeSunAndSky(o) ?? ''} (absorptance ${o.absorptance})`
+        ? `a sol-air day: air ${o.mean} °C ± ${o.amplitude} K peaking at ${o.peakHour} h, sun on the face (absorptance ${o.absorptance})`
         : `a daily sine: ${o.mean} °C ± ${o.amplitude} K peaking at ${o.peakHour} h`;
   const ind = e.indoor.mode === 'constant' ? `${e.indoor.value} °C indoors` : 'an indoor day schedule';
   return `Exposure for all: ${out}; ${ind}; R_se ${e.outsideSurfaceResistance}, R_si ${e.insideSurfaceResistance} m²K/W; ${e.days} reported ${e.days === 1 ? 'day' : 'days'}, step ${e.timeStep} s.`;
+}
+
+/** the exposure a custom one starts from: the first alternative's, else the default */
+function customBaseOf(sources: Map<number, Source>, id: number | undefined): Exposure {
+  return (id !== undefined ? sources.get(id)?.doc?.exposure : undefined) ?? defaultExposure();
 }
 
 /** the line at a glance: which alternative damps the swing most, reacts latest, loses least heat, and which carry a moisture risk */
@@ -525,7 +520,8 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
   const damp = pick((f) => f.decrementFactor, 1);
   const late = pick((f) => f.timeLag, -1);
   const least = pick((f) => f.heatLost, 1);
-  const risk = figures.map((f, i) => (f.moisture && (f.moisture.verdict === 'accumulates' || f.moisture.mouldRisk) ? labels[i] : null)).filter(Boolean);
+  const assessed = figures.some((f) => f.moisture);
+  const risk = figures.map((f, i) => (f.moisture && (f.moisture.verdict !== 'none' || f.moisture.mouldRisk || f.moisture.condensationRisk) ? labels[i] : null)).filter(Boolean);
   const item = (title: string, i: number, value: string, testId: string) => (
     <div className="rounded border border-line bg-panel px-3 py-2" data-testid={testId} data-alt={i}>
       <dt className="text-xs font-semibold text-ink-soft">{title}</dt>
@@ -540,13 +536,11 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
     <dl className="grid gap-2 sm:grid-cols-2 lg:grid-cols-4" aria-label="At a glance" data-testid="glance">
       {item('Damps the swing most', damp, damp >= 0 ? `decrement factor ${fixed(figures[damp].decrementFactor, 3)}` : '', 'glance-damps')}
       {item('Reacts latest', late, late >= 0 ? `time lag ${fixed(figures[late].timeLag / 3600, 2)} h` : '', 'glance-latest')}
-      {item('Loses least heat', least, least >= 0 ? `${fixed(figures[least].heatLost, 1)} Wh/m² over ${fixed(figures[least].reportedDays, 0)} days` : '', 'glance-least-loss')}
+      {item('Loses least heat', least, least >= 0 ? `${fixed(figures[least].heatLost, 3)} kWh/m² over ${fixed(figures[least].reportedDays, 0)} days` : '', 'glance-least-loss')}
       <div className={`rounded border px-3 py-2 ${risk.length ? 'border-danger/40 bg-danger-soft' : 'border-line bg-panel'}`} data-testid="glance-moisture">
         <dt className="text-xs font-semibold text-ink-soft">Moisture risk (ISO 13788)</dt>
-        <dd className="mt-0.5 font-semibold">
-          {risk.length ? `${risk.join(', ')} ${risk.length === 1 ? 'carries' : 'carry'} a condensation or mould risk` : figures.some((f) => f.moisture) ? 'None accumulates water or risks mould' : 'Not checked: no monthly climate'}
-        </dd>
-        <dd className="text-xs text-ink-soft">Steady monthly method; a hygrothermal specialist and local codes decide.</dd>
+        <dd className="mt-0.5 font-semibold">{!assessed ? 'Not assessed: no monthly climate' : risk.length ? `${risk.join(', ')}` : 'None of them'}</dd>
+        <dd className="text-xs text-ink-soft">{risk.length ? 'condensation or a surface risk; see the table' : 'A monthly method; local codes decide.'}</dd>
       </div>
     </dl>
   );

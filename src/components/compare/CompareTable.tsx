@@ -86,17 +86,25 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
           })}
           <tr className="border-b border-line/60" data-row="moisture">
             <th scope="row" className="px-3 py-1.5 text-left font-normal">
-              <Hint text="The ISO 13788 monthly (Glaser) check of each build-up under its own monthly climate: whether vapour condenses inside it, whether it dries out within the year, and the inside surface's temperature factor against mould. Steady months and vapour diffusion only: no liquid transport, moisture storage, air leakage or rain. A hygrothermal specialist and local codes decide. Marked where vapour accumulates over the year or the surface risks mould.">
+              <Hint text="ISO 13788 under the exposure's monthly climate: the interstitial check (monthly Glaser method: does vapour condense in the build-up, and does it dry out within the year) and the surface check (f_Rsi against the mould and condensation limits). Marked where either finds a risk. A steady monthly method: it models no moisture storage, rain or air leakage; assess against local codes.">
                 Moisture (ISO 13788)
               </Hint>
             </th>
             {figures.map((f, i) => {
               const m = f.moisture;
-              const risk = m !== null && (m.verdict === 'accumulates' || m.mouldRisk);
+              const risk = !!m && (m.verdict !== 'none' || m.mouldRisk || m.condensationRisk);
               return (
-                <td key={i} className={`px-3 py-1.5 text-right ${risk ? 'bg-danger-soft text-danger font-semibold' : ''}`} data-alt={i} data-risk={risk ? 'true' : 'false'}>
-                  {m ? m.label : 'not checked (no climate)'}
-                  {m && m.maxAccumulated > 0 ? <span className="block text-xs font-normal text-ink-soft">up to {fixed(m.maxAccumulated, 0)} g/m²{m.maxAtPlane ? ` at ${m.maxAtPlane}` : ''}</span> : null}
+                <td key={i} className={`px-3 py-1.5 text-right text-xs ${risk ? 'bg-danger-soft text-danger' : ''}`} data-alt={i} data-risk={risk ? 'true' : 'false'} title={m ? `${m.text} ${m.surfaceText}` : undefined}>
+                  {m ? (
+                    <>
+                      <span className="font-semibold">{m.label}</span>
+                      <span className="block text-ink-soft">
+                        surface {m.mouldRisk ? 'mould risk' : m.condensationRisk ? 'condensation risk' : 'passes'} (f_Rsi {fixed(m.fRsi, 2)})
+                      </span>
+                    </>
+                  ) : (
+                    <span className="text-ink-faint">no monthly climate or a layer without μ: not assessed</span>
+                  )}
                 </td>
               );
             })}
@@ -131,14 +139,14 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
           ))}
           <tr data-row="mesh">
             <th scope="row" className="px-3 py-1.5 text-left font-normal">
-              <Hint text="Each layer gets at least 4 cells and no cell thicker than the exposure's largest cell; the time step is the exposure's; Crank–Nicolson. The energy-balance error is |heat in − heat out − change of stored heat| over the run, relative to the largest.">
-                Mesh, step, energy balance
+              <Hint text="Each layer gets at least 4 cells and no cell thicker than the exposure's largest cell; the time step is the exposure's; the scheme as the engine ran it.">
+                Mesh, step and scheme
               </Hint>
             </th>
             {figures.map((f, i) => (
               <td key={i} className="px-3 py-1.5 text-right text-xs text-ink-soft" data-alt={i}>
                 {f.run.cells} cells, {f.run.timeStep} s
-                <span className="block">bookkeeping closure {Number.isFinite(f.run.bookkeepingClosure) ? f.run.bookkeepingClosure.toExponential(1) : '–'}</span>
+                <span className="block">{f.run.scheme}</span>
               </td>
             ))}
           </tr>

@@ -6,6 +6,7 @@ import type { UploadedSeries, WorkbenchDocument } from '../../lib/schemas/workbe
 import type { CompareRunner } from '../../lib/workbench/compareRunner';
 import { effectName, effectsCsv, fractionIssue, METRIC_KEYS, METRICS, perturbationPlan, PROPERTY_LABELS, sensitivityEffects, type Effect, type MetricKey } from '../../lib/workbench/sensitivity';
 import Tornado from './Tornado';
+import ProgressBar, { ProgressSignal } from './Progress';
 import { signed } from './rows';
 import { alternativeColour } from './palette';
 
@@ -47,7 +48,7 @@ export default function SensitivityPanel({ alternatives, runner, results, onResu
   const [metric, setMetric] = useState<MetricKey>('decrementFactor');
   const [all, setAll] = useState(false);
   const [running, setRunning] = useState<{ label: string; of: string } | null>(null);
-  const [progress, setProgress] = useState(0);
+  const progress = useRef(new ProgressSignal()).current;
   const [error, setError] = useState<string | null>(null);
   const [note, setNote] = useState<string | null>(null);
   const cancelRef = useRef<(() => void) | null>(null);
@@ -67,27 +68,16 @@ export default function SensitivityPanel({ alternatives, runner, results, onResu
     const a = alternatives[i];
     const runs = perturbationPlan(a.doc.layers.length).length;
     setRunning({ label: a.label, of: `${runs} runs${position}` });
-    setProgress(0);
-    let pending = -1;
-    let frame = 0;
+    progress.reset();
     const t0 = performance.now();
-    const job = runner.sensitivity(a.doc, a.upload, fraction, (f) => {
-      pending = f;
-      if (!frame)
-        frame = requestAnimationFrame(() => {
-          frame = 0;
-          setProgress(pending);
-        });
-    });
+    const job = runner.sensitivity(a.doc, a.upload, fraction, (f) => progress.set(f));
     cancelRef.current = job.cancel;
     try {
       const metrics = await job.result;
-      if (frame) cancelAnimationFrame(frame);
       if (!metrics) return false;
       onResult(i, { doc: a.doc, fraction, effects: sensitivityEffects(a.doc, fraction, metrics), ms: performance.now() - t0 });
       return true;
     } catch (e) {
-      if (frame) cancelAnimationFrame(frame);
       setError(`The sensitivity of ${a.label} could not run: ${e instanceof Error ? e.message : String(e)}`);
       return false;
     }
@@ -181,10 +171,7 @@ export default function SensitivityPanel({ alternatives, runner, results, onResu
           <span className="text-ink-soft">
             {running.label}: {running.of}
           </span>
-          <div role="progressbar" aria-label="Sensitivity progress" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(progress * 100)} className="h-2 w-48 overflow-hidden rounded bg-line">
-            <div className="h-full bg-accent transition-[width] duration-100" style={{ width: `${Math.round(progress * 100)}%` }} />
-          </div>
-          <span className="w-10 tabular text-ink-soft">{Math.round(progress * 100)} %</span>
+          <ProgressBar signal={progress} label="Sensitivity progress" />
           <button type="button" className="rounded border border-line bg-panel px-2 py-1 hover:bg-paper" onClick={cancel} data-testid="sensitivity-cancel">
             Cancel
           </button>

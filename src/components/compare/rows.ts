@@ -87,9 +87,9 @@ export const COMPARE_ROWS: CompareRowDef[] = [
   },
   {
     key: 'heatGained',
-    label: 'Heat gained',
-    unit: 'Wh/m²',
-    digits: 1,
+    label: 'Heat gained, reported period',
+    unit: 'kWh/m²',
+    digits: 3,
     value: (f) => f.heatGained,
     best: 'low',
     bestMeans: 'Lowest is best: the least heat enters the room.',
@@ -97,9 +97,9 @@ export const COMPARE_ROWS: CompareRowDef[] = [
   },
   {
     key: 'heatLost',
-    label: 'Heat lost',
-    unit: 'Wh/m²',
-    digits: 1,
+    label: 'Heat lost, reported period',
+    unit: 'kWh/m²',
+    digits: 3,
     value: (f) => f.heatLost,
     best: 'low',
     bestMeans: 'Lowest is best: the least heat leaves the room (loses least heat).',
@@ -116,9 +116,18 @@ export const COMPARE_ROWS: CompareRowDef[] = [
     bestMeans: 'Highest is best: the coldest interface stays furthest above the dew point of the indoor air.',
     how: (d) => `Lowest temperature of any interface between two layers at the output times ${per(d)}.`,
   },
-  // the ISO 13788 moisture verdict of the moisture pane belongs here once it exists (a row per verdict:
-  // condensation months and whether it evaporates); until then the dew-point screening below stands in.
-  // the discretisation estimate of the exposure pane also belongs here once it exists.
+  {
+    key: 'accuracy',
+    label: 'Discretisation error, estimated',
+    unit: '%',
+    digits: 2,
+    value: (f) => (f.accuracy ? f.accuracy.relative * 100 : NaN),
+    note: (f) => (f.accuracy ? `±${f.accuracy.maxDifference.toFixed(3)} W/m² against ${f.accuracy.coarseCells} cells, ${f.accuracy.coarseTimeStep} s` : 'not made'),
+    best: null,
+    bestMeans: 'No best here: it says how far the simulated traces can be trusted, not which build-up is better.',
+    how: () =>
+      'The largest difference of the inside heat flux between this run and the same run at twice the time step and twice the largest cell, over the reported days, relative to the flux amplitude (an upper estimate of the discretisation error, as the workbench makes it).',
+  },
 ];
 
 /** the index of the best alternative(s) of a row: all that equal the best at the shown precision; none when all are equal or the row has no best */

@@ -3,10 +3,11 @@
 // the periodic figures come from figures() (the same fit the workbench's figures table uses);
 // the peaks and the heat are taken over the whole reported period.
 import type { ModelData } from '../schemas/model.ts';
-import type { WorkbenchDocument } from '../schemas/workbench.ts';
+import { effectiveWarmupDays, isRepeatingExposure, type WorkbenchDocument } from '../schemas/workbench.ts';
 import type { Result } from '../thermal/types.ts';
-import { figures, splitIntegral, type RunFigures, type TimedValue } from './figures.ts';
-import { moistureOfDocument, schemeOf, solAirSeries } from './runDocument.ts';
+import { assessDocument, moistureFigures, type MoistureFigures } from '../moisture/index.ts';
+import { figures, type AccuracyEstimate, type RunFigures, type TimedValue } from './figures.ts';
+import { accuracyOf, schemeOf, solAirSeries } from './runDocument.ts';
 
 const DAY = 86400;
 const HOUR = 3600;
@@ -25,19 +26,21 @@ export interface CompareFigures {
   decrementFactorAnalytic: number;
   /** s, ISO 13786 */
   timeLagAnalytic: number;
-  /** W/m², the largest inside heat flux into the room over the reported period, and when (s from midnight of the first reported day); 0 at no time when the flux never enters the room */
+  /** W/m² into the room, the workbench's peak heat gain over the reported days (0 at no time when the flux never enters the room) */
   peakGain: TimedValue;
-  /** W/m², the largest heat flux out of the room (a positive number), and when; 0 at no time when the flux never leaves the room */
+  /** W/m² out of the room as a positive number, the workbench's peak heat loss (0 when none) */
   peakLoss: TimedValue;
-  /** Wh/m² into the room over the reported period */
+  /** kWh/m² into the room over the reported period */
   heatGained: number;
-  /** Wh/m² out of the room over the reported period (a positive number) */
+  /** kWh/m² out of the room over the reported period (a positive number) */
   heatLost: number;
   /** days in the reported period */
   reportedDays: number;
-  /** the ISO 13788 moisture check under the document's monthly climate; null without a climate */
-  moisture: RunFigures['moisture'];
   lowestInterface: RunFigures['lowestInterface'];
+  /** the ISO 13788 check under the exposure's monthly climate; null without one */
+  moisture: MoistureFigures | null;
+  /** the discretisation estimate (the run against its twin at twice the step and cell); null when not made */
+  accuracy: AccuracyEstimate | null;
   /** the workbench's own figures of the run, for what the table does not repeat */
   run: RunFigures;
 }
@@ -56,31 +59,37 @@ export interface CompareRun {
   series: CompareSeries;
 }
 
-/** s from the start of the run where the reported days begin: the run's end less the reported days */
-export function reportStartOf(doc: WorkbenchDocument, model: Pick<ModelData, 'duration'>): number {
-  return Math.max(0, model.duration - doc.exposure.days * DAY);
+export interface CompareOptions {
+  /** the run's twin at twice the step and cell (coarserModel), for the discretisation estimate */
+  coarse?: { model: ModelData; result: Result } | null;
+  /** make the ISO 13788 check (default true) */
+  moisture?: boolean;
+  /** pack the traces (default true) */
+  withSeries?: boolean;
 }
 
-function extreme(time: ArrayLike<number>, values: ArrayLike<number>, from: number, sign: 1 | -1): TimedValue {
-  let best = NaN;
-  let at = NaN;
-  for (let k = 0; k < time.length; k++) {
-    if (time[k] < from - 1e-6) continue;
-    if (Number.isNaN(best) || sign * values[k] > sign * best) {
-      best = values[k];
-      at = time[k] - from;
-    }
+/** s from the start of the run where the reported days begin, as the workbench counts it */
+export function reportStartOf(doc: WorkbenchDocument): number {
+  return effectiveWarmupDays(doc.exposure) * DAY;
+}
+
+function moistureOf(doc: WorkbenchDocument): MoistureFigures | null {
+  try {
+    const a = assessDocument(doc);
+    return a ? moistureFigures(a) : null;
+  } catch {
+    // a layer without its vapour resistance: the workbench names it in the Moisture pane
+    return null;
   }
-  return { value: best, time: at };
 }
 
-/** the compare figures (and, unless `withSeries` is false, the traces) of one run of `doc` built as `model` */
-export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Result, withSeries = true): CompareRun {
+/** the compare figures (and the traces) of one run of `doc` built as `model`, with the workbench's figures() */
+export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Result, options: CompareOptions = {}): CompareRun {
   const s = result.series;
-  const reportStart = reportStartOf(doc, model);
-  const end = s.time.length > 0 ? s.time[s.time.length - 1] : 0;
+  const reportStart = reportStartOf(doc);
   const interfaceNames = doc.layers.slice(1).map((l, j) => `${doc.layers[j].name} / ${l.name}`);
   const out = doc.exposure.outdoor;
+  const coarse = options.coarse ?? null;
   const run = figures({
     time: s.time,
     reportStart,
@@ -98,14 +107,14 @@ export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Res
     cells: result.stats.cells,
     timeStep: model.timeStep,
     maxCellSize: doc.exposure.maxCellSize,
-    moisture: moistureOfDocument(doc),
-    outdoorPeriodic: out.mode !== 'series',
+    moisture: options.moisture === false ? null : moistureOf(doc),
+    outdoorPeriodic: isRepeatingExposure(doc.exposure) && out.mode !== 'series',
     scheme: schemeOf(result),
+    accuracy: coarse ? accuracyOf(s.time, s.insideFlux, reportStart, coarse.result, coarse.model) : null,
+    otherStartInsideFlux: null,
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
-  const gain = extreme(s.time, s.insideFlux, reportStart, 1);
-  const loss = extreme(s.time, s.insideFlux, reportStart, -1);
-  const heat = splitIntegral(s.time, s.insideFlux, reportStart, end);
+  const end = s.time.length > 0 ? s.time[s.time.length - 1] : 0;
   const figs: CompareFigures = {
     uValue: result.steady.uValue,
     arealHeatCapacity: result.layers.reduce((a, l) => a + l.arealHeatCapacity, 0),
@@ -113,18 +122,19 @@ export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Res
     timeLag: run.timeLag.simulated,
     decrementFactorAnalytic: result.periodic.decrementFactor,
     timeLagAnalytic: result.periodic.timeLag,
-    peakGain: gain.value > 0 ? gain : { value: 0, time: NaN },
-    peakLoss: loss.value < 0 ? { value: -loss.value, time: loss.time } : { value: 0, time: NaN },
-    heatGained: heat.positive / HOUR,
-    heatLost: -heat.negative / HOUR,
+    peakGain: run.peakHeatGain,
+    peakLoss: run.peakHeatLoss,
+    heatGained: run.totalHeatGained,
+    heatLost: run.totalHeatLost,
     reportedDays: (end - reportStart) / DAY,
-    moisture: run.moisture,
     lowestInterface: run.lowestInterface,
+    moisture: run.moisture,
+    accuracy: run.accuracy,
     run,
   };
   let first = 0;
   while (first < s.time.length && s.time[first] < reportStart - 1e-6) first++;
-  const n = withSeries ? s.time.length - first : 0;
+  const n = options.withSeries === false ? 0 : s.time.length - first;
   const hours = new Float64Array(n);
   const insideSurface = new Float64Array(n);
   const insideFlux = new Float64Array(n);

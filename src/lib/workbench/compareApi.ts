@@ -6,7 +6,8 @@ import { parseModel, type ModelData } from '../schemas/model.ts';
 import { toModel, workbenchDocumentSchema, type UploadedSeries, type WorkbenchDocument } from '../schemas/workbench.ts';
 import { simulateBatch } from '../thermal/batch.ts';
 import { compareRun, type CompareRun } from './compare.ts';
-import { metricsOf, perturbedDocument, type Metrics, type Perturbation } from './sensitivity.ts';
+import { coarserModel } from './runDocument.ts';
+import { fractionIssue, metricsOf, perturbedDocument, type Metrics, type Perturbation } from './sensitivity.ts';
 
 /** fraction done of this call, 0…1 */
 export type ChunkProgress = (fraction: number) => void;
@@ -39,10 +40,18 @@ export const compareApi = {
   /** runs the alternatives together; the traces' arrays are transferred, not copied */
   compare(items: CompareItem[], onProgress?: ChunkProgress): CompareOutcome[] {
     const built = items.map((it) => modelOf(it.doc, it.upload));
-    const ok = built.filter((b) => b.ok);
-    const results = ok.length > 0 ? simulateBatch(ok.map((b) => b.model), { storeProfiles: false, onProgress, progressEvery: progressEvery(ok.map((b) => b.model)) }) : [];
+    const ok = built.flatMap((b) => (b.ok ? [b] : []));
+    // each run with its twin at twice the step and cell, for the discretisation estimate (as the workbench makes it)
+    const coarse = ok.map((b) => coarserModel(b.model));
+    const models = [...ok.map((b) => b.model), ...coarse.flatMap((m) => (m ? [m] : []))];
+    const results = models.length > 0 ? simulateBatch(models, { storeProfiles: false, onProgress, progressEvery: progressEvery(models) }) : [];
+    let nextCoarse = ok.length;
+    const runs = ok.map((b, i) => {
+      const c = coarse[i];
+      return compareRun(b.doc, b.model, results[i], { coarse: c ? { model: c, result: results[nextCoarse++] } : null });
+    });
     let next = 0;
-    const outcomes: CompareOutcome[] = built.map((b) => (b.ok ? { kind: 'done', ...compareRun(b.doc, b.model, results[next++]) } : { kind: 'invalid', issues: b.issues }));
+    const outcomes: CompareOutcome[] = built.map((b) => (b.ok ? { kind: 'done', ...runs[next++] } : { kind: 'invalid', issues: b.issues }));
     const buffers = outcomes.flatMap((o) => (o.kind === 'done' ? [o.series.hours.buffer, o.series.insideSurface.buffer, o.series.insideFlux.buffer] : [])) as ArrayBuffer[];
     return Comlink.transfer(outcomes, buffers);
   },
@@ -53,14 +62,22 @@ export const compareApi = {
    * document cannot run.
    */
   sensitivity(doc: unknown, upload: UploadedSeries | null, plan: (Perturbation | null)[], fraction: number, onProgress?: ChunkProgress): Metrics[] {
-    const parsed = workbenchDocumentSchema.parse(doc);
+    const issue = fractionIssue(fraction);
+    if (issue) throw new Error(issue);
+    const base = modelOf(doc, upload);
+    if (!base.ok) throw new Error(base.issues.join('\n'));
+    // a perturbed document differs from the valid base only in one positive layer value scaled by
+    // (1 ± fraction), so it is not validated again (zod costs about as much as a short run): its model
+    // is the base model with the layers toModel() makes of the perturbed document
     const runs = plan.map((p) => {
-      const m = modelOf(perturbedDocument(parsed, p, fraction), upload);
-      if (!m.ok) throw new Error(m.issues.join('\n'));
-      return m;
+      if (!p) return base;
+      const perturbed = perturbedDocument(base.doc, p, fraction);
+      const layers = toModel(perturbed, upload ?? undefined).layers;
+      const model: ModelData = { ...base.model, layers: base.model.layers.map((l, i) => ({ ...l, ...layers[i] })) };
+      return { ok: true as const, doc: perturbed, model };
     });
     const results = simulateBatch(runs.map((r) => r.model), { storeProfiles: false, onProgress, progressEvery: progressEvery(runs.map((r) => r.model)) });
-    return runs.map((r, i) => metricsOf(compareRun(r.doc, r.model, results[i], false).figures));
+    return runs.map((r, i) => metricsOf(compareRun(r.doc, r.model, results[i], { moisture: false, withSeries: false }).figures));
   },
 
   /** answers at once: proves the worker is up and its modules are loaded */

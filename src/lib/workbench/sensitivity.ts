@@ -65,7 +65,7 @@ export type Metrics = Record<MetricKey, number>;
 
 /** the metrics of one run, from its compare figures */
 export function metricsOf(f: CompareFigures): Metrics {
-  return { uValue: f.uValue, decrementFactor: f.decrementFactor, timeLag: f.timeLag, peakInsideFlux: f.run.peakInsideFlux.value, heatLost: f.heatLost };
+  return { uValue: f.uValue, decrementFactor: f.decrementFactor, timeLag: f.timeLag, peakInsideFlux: f.run.peakInsideFlux.value, heatLost: f.heatLost * 1000 /* kWh → Wh */ };
 }
 
 /** one changed property of one layer; sign −1 lowers it by the fraction, +1 raises it */
