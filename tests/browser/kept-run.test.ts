@@ -21,7 +21,7 @@ describe('a kept run', () => {
     await expect(pane.getByTestId('run-origin').textContent()).resolves.toMatch(new RegExp(`^Kept run of revision ${record.revisionNumber}, .+ by Tomas Reyes$`));
     const decrement = pane.locator('[data-figure="decrementFactor"] [data-cell="simulated"]');
     await expect(decrement.textContent()).resolves.toBe(formatFigure('decrementFactorSimulated', record.summary.decrementFactorSimulated));
-    await expect(pane.locator('[data-figure="peakInsideFlux"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakInsideFluxWm2', record.summary.peakInsideFluxWm2));
+    await expect(pane.locator('[data-figure="peakHeatLoss"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakHeatLossWm2', record.summary.peakHeatLossWm2));
     // the kept run stays: nothing ran by itself in the checker's browser
     await page.waitForTimeout(1500);
     await expect(pane.getByTestId('run-origin').textContent()).resolves.toMatch(/^Kept run of revision/);
@@ -52,8 +52,8 @@ describe('a kept run', () => {
     await exposure.getByLabel('Daily mean').fill('27');
     await pane.getByTestId('run-comparison').waitFor({ timeout: 30_000 });
     await expect(pane.getByTestId('run-state').textContent()).resolves.toMatch(/^Unsaved run/);
-    const row = pane.getByTestId('run-comparison').locator('[data-compare="peakInsideFluxWm2"]');
-    await expect(row.locator('td').nth(0).textContent()).resolves.toBe(formatFigure('peakInsideFluxWm2', record.summary.peakInsideFluxWm2));
+    const row = pane.getByTestId('run-comparison').locator('[data-compare="peakHeatLossWm2"]');
+    await expect(row.locator('td').nth(0).textContent()).resolves.toBe(formatFigure('peakHeatLossWm2', record.summary.peakHeatLossWm2));
     await expect(row.locator('td').nth(2).textContent()).resolves.toMatch(/^\+\d/);
     await expect(pane.getByTestId('run-results').getAttribute('data-stale')).resolves.toBe('false');
 

@@ -17,8 +17,8 @@ let guestPages: string[];
 
 /** a word with a capital after lower-case letters (decrementFactor), or words joined by underscores (in_check) */
 const PROGRAM_KEY = /\b[a-z]+[A-Z][A-Za-z0-9]*\b|\b[a-z]+_[a-z_]+\b/g;
-/** units written the way the trade writes them */
-const ALLOWED = new Set(['kWh', 'mWh', 'kJ', 'kPa', 'mPa']);
+/** units and symbols written the way the trade writes them (s_d, p_i: ISO 13788's subscripts in plain text) */
+const ALLOWED = new Set(['kWh', 'mWh', 'kJ', 'kPa', 'mPa', 's_d', 'p_i', 'p_e', 'p_sat']);
 
 async function keysOn(page: Page, url: string): Promise<string[]> {
   const res = await page.goto(url);

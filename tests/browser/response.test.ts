@@ -161,9 +161,9 @@ describe('Report page', () => {
     const figures = await page.getByTestId('report-figures').textContent();
     expect(figures).toMatch(/U-value \d\.\d{3} W\/m²K/);
     expect(figures).toMatch(/Decrement factor/);
-    expect(figures).toMatch(/Dew point/);
+    expect(figures).toMatch(/Moisture, interstitial \(ISO 13788\)/);
     await expect(page.getByTestId('caution').textContent()).resolves.toMatch(/qualified professional/);
-    await expect(report.textContent()).resolves.toMatch(/EN ISO 13788/);
+    await expect(report.textContent()).resolves.toMatch(/ISO 13788/);
     await page.emulateMedia({ media: 'print' });
     await expect(page.locator('header.no-print').isVisible()).resolves.toBe(false);
     await screenshot(page, 'report-print');

@@ -30,7 +30,7 @@ describe('the Shared view', () => {
     // the same figures the engineer kept, to the decimals the figure definitions give them
     await expect(table.locator('[data-figure="decrementFactor"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('decrementFactorSimulated', record.summary.decrementFactorSimulated));
     await expect(table.locator('[data-figure="timeLag"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('timeLagSimulatedH', record.summary.timeLagSimulatedH));
-    await expect(table.locator('[data-figure="peakInsideFlux"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakInsideFluxWm2', record.summary.peakInsideFluxWm2));
+    await expect(table.locator('[data-figure="peakHeatLoss"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakHeatLossWm2', record.summary.peakHeatLossWm2));
     // the engine's housekeeping stays with the team
     await expect(table.locator('[data-figure="mesh"]').count()).resolves.toBe(0);
     for (const id of ['chart-surface', 'chart-flux', 'chart-profile']) await expect(page.getByTestId(id).count()).resolves.toBe(1);

@@ -45,7 +45,7 @@ export function verdictsOf(run: RunDone, exposure: Exposure): Verdict[] {
   if (repeatsDaily(exposure) && f.periodic.start === 'periodic' && f.periodic.checked) {
     out.push(
       f.periodic.reached
-        ? { key: 'periodic', title: 'Periodic state: started in it, and held', text: `The run started in the periodic state of its repeating day; the inside heat flux at the same time of the last two reported days differs by at most ${pct(f.periodic.maxDifference)} of its amplitude (criterion ${pct(ACCURACY_TOLERANCE)}).`, tone: 'ok' }
+        ? { key: 'periodic', title: 'Periodic state: reached (the run started in it)', text: `The run started in the periodic state of its repeating day; the inside heat flux at the same time of the last two reported days differs by at most ${pct(f.periodic.maxDifference)} of its amplitude (criterion ${pct(ACCURACY_TOLERANCE)}).`, tone: 'ok' }
         : { key: 'periodic', title: 'Periodic state: not held', text: `The inside heat flux at the same time of the last two reported days differs by up to ${pct(f.periodic.maxDifference)} of its amplitude (criterion ${pct(ACCURACY_TOLERANCE)}): refine the time step before reading the simulated decrement factor and time lag.`, tone: 'warn' },
     );
   }
