@@ -2,6 +2,7 @@
 // a browser benchmark can be added as tests/bench/browser.ts returning BenchRow[] and listed here.
 import { engineBench, type BenchRow } from './engine.ts';
 import { browserBench } from './browser.ts';
+import { documentBench } from './document.ts';
 
 function format(v: number, unit: string): string {
   if (unit === 'node-steps/s') return `${(v / 1e6).toFixed(1)} M node-steps/s`;
@@ -31,7 +32,7 @@ export function printTable(rows: BenchRow[]): boolean {
 }
 
 const started = performance.now();
-const rows: BenchRow[] = [...engineBench()];
+const rows: BenchRow[] = [...engineBench(), ...documentBench()];
 // the browser section needs chromium and an app (given by WALLPULSE_BASE_URL + DATABASE_URL, else started here); BENCH_BROWSER=0 skips it
 if (process.env.BENCH_BROWSER !== '0') {
   try {

@@ -12,30 +12,27 @@ beforeAll(async () => {
 });
 
 describe('the run length of the Exposure pane', () => {
-  it('names both fields when days to report and warm-up days pass ten years, and keeps the last valid days', async () => {
+  it('keeps a repeating day within the engine\'s ten years with no warm-up days, and keeps the last valid days', async () => {
     const { page, context, errors } = await openPage(browser(), { userId: 'demo-engineer' });
     await page.goto(`/assemblies/${assemblyId}`);
     const exposure = page.getByTestId('exposure-pane');
     const days = exposure.getByLabel('Days to report');
     await days.waitFor();
     const run = page.getByTestId('run');
-    await expect(run.textContent()).resolves.toBe('Run 7 days');
-    // 3650 + 4 warm-up days = 3654 > 3652, the engine's ten years in whole days
-    await days.fill('3650');
-    await expect(exposure.getByRole('alert').textContent()).resolves.toBe(
-      'Days to report plus warm-up days must be at most 3652 (ten years); with 4 warm-up days, at most 3648 days to report',
-    );
+    // a daily sine starts in its periodic state: the run is the reported days alone, and there is no warm-up field
+    await expect(run.textContent()).resolves.toBe('Run 3 days');
+    await expect(exposure.getByLabel('Warm-up days').count()).resolves.toBe(0);
+    await expect(exposure.getByTestId('periodic-start-note').textContent()).resolves.toMatch(/periodic state/);
+    // 3653 days > 3652, the engine's ten years in whole days
+    await days.fill('3653');
+    await expect(exposure.getByRole('alert').textContent()).resolves.toBe('Days to report must be at most 3652 (ten years)');
     await expect(days.getAttribute('aria-invalid')).resolves.toBe('true');
-    // the document kept 3 days: the run button and the total are unchanged, and no engine message shows
-    await expect(run.textContent()).resolves.toBe('Run 7 days');
+    // the document kept 3 days: the run button is unchanged, and no engine message shows
+    await expect(run.textContent()).resolves.toBe('Run 3 days');
     await expect(page.getByTestId('run-issues').count()).resolves.toBe(0);
     await expect(page.getByTestId('response-pane').textContent()).resolves.not.toMatch(/duration/);
-    await days.fill('3648');
+    await days.fill('3652');
     await expect(exposure.getByRole('alert').count()).resolves.toBe(0);
-    await expect(run.textContent()).resolves.toBe('Run 3652 days');
-    // and the warm-up field now checks against the 3648 days
-    await exposure.getByLabel('Warm-up days').fill('5');
-    await expect(exposure.getByRole('alert').textContent()).resolves.toMatch(/^Days to report plus warm-up days must be at most 3652 \(ten years\); with 3648 days to report, at most 4 warm-up days$/);
     await expect(run.textContent()).resolves.toBe('Run 3652 days');
     expect(errors).toEqual([]);
     await context.close();

@@ -412,7 +412,7 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
       </Group>
 
       <Group title="Run">
-        {num('days', daysRule(exposure.warmupDays), `Days whose figures are reported; with the warm-up days at most ${MAX_RUN_DAYS} days (ten years) in all`)}
+        {num('days', daysRule(out.mode === 'series' ? exposure.warmupDays : 0), `Days whose figures are reported; with the warm-up days at most ${MAX_RUN_DAYS} days (ten years) in all`)}
         {out.mode === 'series' ? (
           num('warmupDays', warmupRule(exposure.days), 'Uploaded series only: days run first (from the steady state of the first hour) and left out of the figures, so the wall forgets its starting state')
         ) : (

@@ -153,33 +153,33 @@ function LiveFigures({ layers, exposure, figures }: Props) {
         <table className="w-full text-sm tabular" aria-label="Figures per layer">
           <thead>
             <tr className="border-b border-line text-left text-xs text-ink-soft">
-              <th scope="col" className="px-2 py-1.5 align-bottom font-semibold">#</th>
-              <th scope="col" className="px-2 py-1.5 align-bottom font-semibold">Layer</th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="px-1.5 py-1.5 align-bottom font-semibold">#</th>
+              <th scope="col" className="px-1.5 py-1.5 align-bottom font-semibold">Layer</th>
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint text="Layer thickness d, mm.">d</Hint>
                 <Unit>mm</Unit>
               </th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint text="Thermal resistance R = d / λ, m²K/W.">R</Hint>
                 <Unit>m²K/W</Unit>
               </th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint text="Thermal diffusivity a = λ / (ρ·c), shown in 10⁻⁷ m²/s (0.1 mm²/s).">a</Hint>
                 <Unit>10⁻⁷ m²/s</Unit>
               </th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint text={`Periodic penetration depth δ = √(a·P/π) for P = ${fixed(periodH, 0)} h, mm: the depth at which a surface swing falls to 1/e of its amplitude in a thick layer.`} align="right">
                   δ
                 </Hint>
                 <Unit>mm</Unit>
               </th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint text={`Fourier number for one period, Fo = a·P / d² with P = ${fixed(periodH, 0)} h (dimensionless): above about 1 the layer follows the daily swing through its whole thickness.`} align="right">
                   Fo
                 </Hint>
                 <Unit>–</Unit>
               </th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint
                   align="right"
                   text={`Layer Biot number Bi = h̄·(d/2)/λ, with h̄ = (1/R_se + 1/R_si)/2 = ${fixed(hBar, 1)} W/m²K the mean film coefficient of the assembly (the engine's layer definition). Bi < 0.1 marks a layer that behaves as one lumped temperature (common practice).`}
@@ -188,19 +188,19 @@ function LiveFigures({ layers, exposure, figures }: Props) {
                 </Hint>
                 <Unit>–</Unit>
               </th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint align="right" text="Water-vapour resistance factor μ of the layer's material (dimensionless): how many times more a layer resists vapour diffusion than still air of the same thickness. Empty when the layer has none; the moisture check needs it.">
                   μ
                 </Hint>
                 <Unit>–</Unit>
               </th>
-              <th scope="col" className="whitespace-nowrap px-2 py-1.5 text-right align-bottom font-semibold">
+              <th scope="col" className="whitespace-nowrap px-1.5 py-1.5 text-right align-bottom font-semibold">
                 <Hint align="right" text="Diffusion-equivalent air layer thickness s_d = μ·d, m (ISO 13788): the thickness of still air that resists vapour as much as the layer does.">
                   s_d
                 </Hint>
                 <Unit>m</Unit>
               </th>
-              <th scope="col" className="px-2 py-1.5 align-bottom font-semibold">
+              <th scope="col" className="px-1.5 py-1.5 align-bottom font-semibold">
                 <Hint align="right" text="Lumped: Bi < 0.1, so the temperature across the layer is nearly uniform at any moment (common practice).">
                   Lumped
                 </Hint>
@@ -219,19 +219,19 @@ function LiveFigures({ layers, exposure, figures }: Props) {
                   onPointerLeave={() => setHighlighted(null)}
                   className={`border-b border-line/60 last:border-0 ${highlightedId === layer.id ? 'bg-accent-soft' : ''}`}
                 >
-                  <td className="px-2 py-1 text-ink-faint">{i + 1}</td>
-                  <td className="max-w-48 truncate px-2 py-1" title={layer.name}>
+                  <td className="px-1.5 py-1 text-ink-faint">{i + 1}</td>
+                  <td className="max-w-40 truncate px-1.5 py-1" title={layer.name}>
                     {layer.name}
                   </td>
-                  <td className="px-2 py-1 text-right">{mm(layer.thickness)}</td>
-                  <td className="px-2 py-1 text-right">{fixed(f.resistance, 3)}</td>
-                  <td className="px-2 py-1 text-right">{fixed(f.diffusivity * 1e7, 2)}</td>
-                  <td className="px-2 py-1 text-right">{fixed(f.penetrationDepth * 1000, 0)}</td>
-                  <td className="px-2 py-1 text-right">{f.fourier >= 1000 ? f.fourier.toExponential(1) : fixed(f.fourier, 2)}</td>
-                  <td className="px-2 py-1 text-right">{f.biot < 0.001 ? f.biot.toExponential(1) : fixed(f.biot, 3)}</td>
-                  <td className="px-2 py-1 text-right" data-cell="mu">{layer.vapourResistanceFactor === null ? '–' : layer.vapourResistanceFactor >= 1e5 ? layer.vapourResistanceFactor.toExponential(0) : fixed(layer.vapourResistanceFactor, 0)}</td>
-                  <td className="px-2 py-1 text-right" data-cell="sd">{layer.vapourResistanceFactor === null ? '–' : sdText(layer.vapourResistanceFactor * layer.thickness)}</td>
-                  <td className="px-2 py-1">{f.lumped ? <span className="rounded bg-accent-soft px-1.5 text-xs font-semibold text-accent-strong">lumped</span> : <span className="text-ink-faint">–</span>}</td>
+                  <td className="px-1.5 py-1 text-right">{mm(layer.thickness)}</td>
+                  <td className="px-1.5 py-1 text-right">{fixed(f.resistance, 3)}</td>
+                  <td className="px-1.5 py-1 text-right">{fixed(f.diffusivity * 1e7, 2)}</td>
+                  <td className="px-1.5 py-1 text-right">{fixed(f.penetrationDepth * 1000, 0)}</td>
+                  <td className="px-1.5 py-1 text-right">{f.fourier >= 1000 ? f.fourier.toExponential(1) : fixed(f.fourier, 2)}</td>
+                  <td className="px-1.5 py-1 text-right">{f.biot < 0.001 ? f.biot.toExponential(1) : fixed(f.biot, 3)}</td>
+                  <td className="px-1.5 py-1 text-right" data-cell="mu">{layer.vapourResistanceFactor === null ? '–' : layer.vapourResistanceFactor >= 1e5 ? layer.vapourResistanceFactor.toExponential(0) : fixed(layer.vapourResistanceFactor, 0)}</td>
+                  <td className="px-1.5 py-1 text-right" data-cell="sd">{layer.vapourResistanceFactor === null ? '–' : sdText(layer.vapourResistanceFactor * layer.thickness)}</td>
+                  <td className="px-1.5 py-1">{f.lumped ? <span className="rounded bg-accent-soft px-1.5 text-xs font-semibold text-accent-strong">lumped</span> : <span className="text-ink-faint">–</span>}</td>
                 </tr>
               );
             })}

@@ -47,7 +47,12 @@ export const daysRule = (warmupDays: number): NumberRule => ({
   min: 1,
   max: 3660,
   integer: true,
-  extra: (v) => (v + warmupDays > MAX_RUN_DAYS ? `${TOTAL_DAYS_MESSAGE}; with ${warmupDays} warm-up days, at most ${MAX_RUN_DAYS - warmupDays} days to report` : null),
+  extra: (v) =>
+    v + warmupDays > MAX_RUN_DAYS
+      ? warmupDays === 0
+        ? `Days to report must be at most ${MAX_RUN_DAYS} (ten years)`
+        : `${TOTAL_DAYS_MESSAGE}; with ${warmupDays} warm-up days, at most ${MAX_RUN_DAYS - warmupDays} days to report`
+      : null,
 });
 /** the rule of "Warm-up days", given the days to report in the document */
 export const warmupRule = (days: number): NumberRule => ({

@@ -16,8 +16,8 @@ export interface MoistureAssessment {
 }
 
 /** interstitial (clause 7) and surface (clause 6) checks of ISO 13788:2012 */
-export function assessMoisture(layers: MoistureLayer[], climate: Climate): MoistureAssessment {
-  const glaser = glaserYear(layers, climate);
+export function assessMoisture(layers: MoistureLayer[], climate: Climate, options: { rsi?: number; rse?: number } = {}): MoistureAssessment {
+  const glaser = glaserYear(layers, climate, options);
   const surface = surfaceCheck(layers, climate);
   const verdict: MoistureVerdictKind = !glaser.condenses ? 'none' : glaser.driesOut ? 'driesOut' : 'accumulates';
   return { layers, climate, glaser, surface, verdict };
@@ -34,8 +34,13 @@ export interface DocumentLayerLike {
 /** the parts of a workbench document the moisture check reads */
 export interface DocumentLike {
   layers: DocumentLayerLike[];
-  exposure: { climate?: { months: MonthClimate[]; indoor: IndoorClimate } | null };
+  exposure: { climate?: { months: MonthClimate[]; indoor: IndoorClimate } | null; heatFlowDirection?: HeatFlowDirection };
 }
+
+export type HeatFlowDirection = 'horizontal' | 'upward' | 'downward';
+
+/** R_si of the interstitial check by the direction of heat flow, m²K/W: ISO 6946 conventional values (Table 7, from memory), as ISO 13788 4.3 refers to them */
+export const INTERSTITIAL_RSI_BY_DIRECTION: Record<HeatFlowDirection, number> = { horizontal: 0.13, upward: 0.1, downward: 0.17 };
 
 /** `path: message` lines for what keeps a document with a climate from the moisture check; empty when it can run */
 export function moistureIssues(doc: DocumentLike): string[] {
@@ -61,7 +66,7 @@ export function assessDocument(doc: DocumentLike): MoistureAssessment | null {
   if (!climate || doc.layers.length === 0) return null;
   const layers = moistureLayers(doc.layers);
   if (!layers) return null;
-  return assessMoisture(layers, { months: climate.months, indoor: climate.indoor });
+  return assessMoisture(layers, { months: climate.months, indoor: climate.indoor }, { rsi: INTERSTITIAL_RSI_BY_DIRECTION[doc.exposure.heatFlowDirection ?? 'horizontal'] });
 }
 
 /** one month of the command line's `moisture` object */

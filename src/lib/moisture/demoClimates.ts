@@ -14,17 +14,17 @@ const months = (t: number[], rh: number[]): MonthClimate[] => t.map((temperature
 export const DEMO_CLIMATES: readonly DemoClimate[] = [
   {
     key: 'harrow-lane',
-    name: 'Harrow Lane, inland town (demo)',
-    description: 'The library’s own site: a cool inland town with frosty winters. Reading room at 20 °C, humidity class 3 (occupancy not known in detail).',
+    name: 'Harrow Lane, town site (demo)',
+    description: 'The library’s own site: monthly means in the range of a northern inland town, written for the demo. Reading room at 20 °C, humidity class 3 (occupancy not known in detail).',
     climate: {
-      months: months([-1.0, 0.2, 3.8, 8.2, 12.8, 16.0, 18.2, 17.7, 14.0, 9.4, 4.4, 0.6], [88, 85, 80, 74, 72, 72, 71, 74, 79, 84, 88, 89]),
+      months: months([4.0, 4.3, 6.2, 8.4, 11.5, 14.3, 16.4, 16.1, 13.7, 10.3, 6.8, 4.4], [88, 85, 80, 74, 72, 72, 71, 74, 79, 84, 88, 89]),
       indoor: { temperature: 20, humidityClass: 3 },
     },
   },
   {
     key: 'calder-moor',
     name: 'Calder moor edge, upland (demo)',
-    description: 'A colder, wetter upland site above the town, for testing a build-up under harder winters. Indoor 20 °C at 50 % relative humidity.',
+    description: 'A colder, wetter upland site above the town, with frosty winters, for testing a build-up under harder conditions. Indoor 20 °C at 50 % relative humidity.',
     climate: {
       months: months([-4.5, -3.6, -0.4, 4.0, 9.0, 12.6, 14.8, 14.4, 10.8, 6.0, 1.0, -2.8], [92, 90, 86, 80, 77, 78, 79, 81, 85, 89, 92, 93]),
       indoor: { temperature: 20, relativeHumidity: 50 },

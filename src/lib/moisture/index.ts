@@ -26,6 +26,8 @@ export {
   moistureFromDocument,
   planeIndex,
   MoistureInputError,
+  INTERSTITIAL_RSI_BY_DIRECTION,
+  type HeatFlowDirection,
   type MoistureAssessment,
   type MoistureVerdictKind,
   type MoistureOutput,
@@ -33,7 +35,7 @@ export {
   type DocumentLike,
   type DocumentLayerLike,
 } from './assess.ts';
-export { moistureVerdictText, moistureFigures, planeName, MOISTURE_CAUTIONS, MOISTURE_DEFERRAL, type MoistureVerdictText, type MoistureFigures } from './verdict.ts';
+export { moistureVerdictText, moistureFigures, planeName, LARGE_AMOUNT, MOISTURE_CAUTIONS, MOISTURE_DEFERRAL, type MoistureVerdictText, type MoistureFigures } from './verdict.ts';
 export { glaserDiagramSvg, DIAGRAM_COLOURS, type DiagramOptions } from './diagram.ts';
 export { DEMO_CLIMATES, demoClimate, type DemoClimate } from './demoClimates.ts';
 export { moistureReport, keyMonth, type MoistureReport, type MoistureReportRow } from './report.ts';

@@ -22,6 +22,9 @@ export function planeName(layers: { name: string }[], k: number): string {
   return `${layers[k - 1].name} / ${layers[k].name}`;
 }
 
+/** g/m²: an amount held at an interface above which the trade is usually wary, even if it dries out (common practice, not a clause of ISO 13788) */
+export const LARGE_AMOUNT = 500;
+
 const grams = (v: number): string => (v >= 100 ? v.toFixed(0) : v >= 10 ? v.toFixed(1) : v.toFixed(2));
 
 export interface MoistureVerdictText {
@@ -48,6 +51,9 @@ export function moistureVerdictText(a: MoistureAssessment): MoistureVerdictText 
   } else if (a.verdict === 'driesOut') {
     label = 'Condenses, dries out within the year';
     text = `Vapour condenses in the cold months and dries out within the year: at most ${grams(g.maxAccumulated)} g/m² is held, ${where}${when}.`;
+    if (g.maxAccumulated > LARGE_AMOUNT) {
+      text += ` That is more than the ${LARGE_AMOUNT} g/m² often taken as the most an interface may hold even when it dries out (common practice; the limit depends on the materials and on local codes).`;
+    }
   } else {
     const left = g.months[(((g.startMonth ?? 1) + 10) % 12)].accumulated;
     label = 'Accumulates: fails';

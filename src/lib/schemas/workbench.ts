@@ -281,7 +281,7 @@ export function defaultExposure(): Exposure {
     insideSurfaceResistance: ISO6946_RSI.horizontal,
     outsideSurfaceResistance: ISO6946_RSE,
     days: 3,
-    warmupDays: 7,
+    warmupDays: 4,
     timeStep: 300,
     maxCellSize: 0.005,
     indoorRelativeHumidity: 50,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { assessMoisture, glaserYear, lowerHull, moistureSupply, insideVapourPressure, type Climate, type MoistureLayer } from '../../../src/lib/moisture/index.ts';
+import { assessMoisture, moistureVerdictText, glaserYear, lowerHull, moistureSupply, insideVapourPressure, type Climate, type MoistureLayer } from '../../../src/lib/moisture/index.ts';
 
 // layer values: ISO 10456:2007 Table 3 typical values (from memory), as in the built-in library
 const plywood: MoistureLayer = { name: 'Plywood sheathing', thickness: 0.018, conductivity: 0.13, vapourResistanceFactor: 200 };
@@ -12,7 +12,7 @@ const constantYear = (temperature: number, relativeHumidity: number, indoor: Cli
   indoor,
 });
 
-/** a temperate year of our own (the Harrow Lane demo site), indoor 20 °C at humidity class 3 */
+/** a cool inland year of our own, with frosty winters, indoor 20 °C at humidity class 3 */
 const harrowLane: Climate = {
   months: [
     [-1.0, 88], [0.2, 85], [3.8, 80], [8.2, 74], [12.8, 72], [16.0, 72], [18.2, 71], [17.7, 74], [14.0, 79], [9.4, 84], [4.4, 88], [0.6, 89],
@@ -116,6 +116,9 @@ describe('glaserYear: masonry and vapour-open walls (ISO 13788:2012 clause 7; ex
     const condensed = g.months.reduce((s, m) => s + m.condensed, 0);
     const evaporated = g.months.reduce((s, m) => s + m.evaporated, 0);
     expect(evaporated).toBeCloseTo(condensed, 6);
+    // over a kilogram at one interface: the verdict adds the trade's usual 500 g/m² caution (common practice)
+    expect(g.maxAccumulated).toBeGreaterThan(500);
+    expect(moistureVerdictText(a).text).toMatch(/more than the 500 g\/m² often taken as the most an interface may hold/);
   });
 
   it('finds no condensation where the outside is vapour-open and the inside tight', () => {

@@ -1,6 +1,6 @@
 // the result of the moisture check: verdict, month strip, Glaser diagrams (to scale and against
 // s_d), the table of months and the cautions. pure props, so the workbench and other pages can use it.
-import { useMemo, useRef } from 'react';
+import { memo, useMemo, useRef } from 'react';
 import {
   MOISTURE_CAUTIONS,
   MOISTURE_DEFERRAL,
@@ -55,7 +55,7 @@ export function MoistureCautions() {
 
 const g = (v: number) => (v === 0 ? '0' : v < 10 ? fixed(v, 1) : fixed(v, 0));
 
-export default function MoistureResult({ assessment, month, onMonth, fills }: { assessment: MoistureAssessment; month: number; onMonth(m: number): void; fills: string[] }) {
+function MoistureResult({ assessment, month, onMonth, fills }: { assessment: MoistureAssessment; month: number; onMonth(m: number): void; fills: string[] }) {
   const a = assessment;
   const m = a.glaser.months[month - 1];
   const s = a.surface.months[month - 1];
@@ -138,7 +138,7 @@ export default function MoistureResult({ assessment, month, onMonth, fills }: { 
       <div className="grid gap-3 xl:grid-cols-2">
         <figure className="min-w-0 rounded border border-line bg-panel p-2">
           <figcaption className="text-xs font-semibold text-ink-soft">
-            <Hint text="Steady temperature profile of the month through the layers (ISO 6946 resistances, R_se 0.04 and R_si 0.13 m²K/W); saturation pressure by ISO 13788 at each depth; the vapour pressure line drawn taut under the saturation line from the outdoor to the indoor vapour pressure. Red bars mark where vapour condenses.">
+            <Hint text="Steady temperature profile of the month through the layers (ISO 6946 resistances; R_se 0.04 m²K/W, R_si 0.13 m²K/W for horizontal heat flow, 0.10 upward, 0.17 downward, by the Exposure pane's heat flow); saturation pressure by ISO 13788 at each depth; the vapour pressure line drawn taut under the saturation line from the outdoor to the indoor vapour pressure. Red bars mark where vapour condenses.">
               The section to scale
             </Hint>
           </figcaption>
@@ -174,13 +174,19 @@ export default function MoistureResult({ assessment, month, onMonth, fills }: { 
               <th scope="col" className="px-2 py-1 text-right font-normal">
                 <Hint align="right" text="Water held at the end of the month, g/m², counted from the ISO 13788 start month (the first month that condenses after one that does not).">Held</Hint> g/m²
               </th>
-              <th scope="col" className="px-2 py-1 text-left font-normal">Where</th>
+              <th scope="col" className="px-2 py-1 text-left font-normal">
+                <Hint text="The interfaces (between two layers, named outside / inside) where vapour condenses in the month, or else where water is still held.">Where</Hint>
+              </th>
               <th scope="col" className="px-2 py-1 text-right font-normal">
                 <Hint align="right" text="f_Rsi,min for mould: (θ_si,min − θ_e)/(θ_i − θ_e), with θ_si,min the surface temperature at which the indoor vapour would make 80 % relative humidity (ISO 13788 clause 6). The build-up's f_Rsi uses R_si 0.25 m²K/W.">
                   f_Rsi,min
                 </Hint>
               </th>
-              <th scope="col" className="px-2 py-1 text-left font-normal">Surface</th>
+              <th scope="col" className="px-2 py-1 text-left font-normal">
+                <Hint align="right" text="The surface check of the month: passes when the build-up's f_Rsi is at least f_Rsi,min for mould; mould risk when it is below; condensation when it is below the f_Rsi,min for 100 % surface humidity (the dew point of the indoor air).">
+                  Surface
+                </Hint>
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -224,3 +230,5 @@ export default function MoistureResult({ assessment, month, onMonth, fills }: { 
     </div>
   );
 }
+
+export default memo(MoistureResult);
