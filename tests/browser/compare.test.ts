@@ -71,7 +71,7 @@ describe('Compare page', () => {
     await page.goto(`/jobs/${jobId}`);
     await page.getByTestId('compare-link').click();
     await page.waitForURL(/\/jobs\/\d+\/compare/);
-    await page.getByTestId('compare-table').waitFor();
+    await page.getByTestId('picks').locator('select').first().waitFor();
     await expect(page.getByTestId('picks').locator('select').count()).resolves.toBe(4);
 
     // the three contrasting build-ups, chosen by their revisions
