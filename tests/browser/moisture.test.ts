@@ -4,6 +4,7 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { useBrowser, openPage, outsideRequests, screenshot } from '../support/browser';
 import { demoAssembly } from '../support/db';
+import { demoClimate } from '../../src/lib/moisture/index.ts';
 
 const browser = useBrowser();
 const WITHOUT = 'Stair tower, timber frame without vapour control layer';
@@ -100,7 +101,7 @@ describe('the Moisture pane', () => {
     await editor.getByTestId('climate-csv').fill(rows.join('\n'));
     await editor.getByTestId('climate-csv-apply').click();
     await expect(editor.getByTestId('climate-csv-problems').textContent()).resolves.toMatch(/^line 4: temperature "mild" is not a number in °C/);
-    await expect(editor.getByLabel('March outdoor temperature (°C)').inputValue()).resolves.toBe('3.8');
+    await expect(editor.getByLabel('March outdoor temperature (°C)').inputValue()).resolves.toBe(String(demoClimate('harrow-lane').months[2].temperature));
     // a bad cell names its field and unit, and the verdict stays on the last valid climate
     await editor.getByLabel('January outdoor relative humidity (%)').fill('130');
     await expect(editor.getByRole('alert').filter({ hasText: 'Outdoor relative humidity must be at most 100 %' }).count()).resolves.toBe(1);

@@ -11,6 +11,7 @@ import { strongest, type MetricKey } from '../../lib/workbench/sensitivity';
 import SectionDrawing from '../workbench/SectionDrawing';
 import { fixed } from '../workbench/format';
 import CompareTable from './CompareTable';
+import { moistureRisk } from './rows';
 import OverlayCharts from './OverlayCharts';
 import SensitivityPanel, { type SensitivityResult } from './SensitivityPanel';
 import { alternativeColour, ALTERNATIVE_STYLE } from './palette';
@@ -521,7 +522,7 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
   const late = pick((f) => f.timeLag, -1);
   const least = pick((f) => f.heatLost, 1);
   const assessed = figures.some((f) => f.moisture);
-  const risk = figures.map((f, i) => (f.moisture && (f.moisture.verdict !== 'none' || f.moisture.mouldRisk || f.moisture.condensationRisk) ? labels[i] : null)).filter(Boolean);
+  const risk = figures.map((f, i) => (moistureRisk(f.moisture) ? labels[i] : null)).filter(Boolean);
   const item = (title: string, i: number, value: string, testId: string) => (
     <div className="rounded border border-line bg-panel px-3 py-2" data-testid={testId} data-alt={i}>
       <dt className="text-xs font-semibold text-ink-soft">{title}</dt>
@@ -540,7 +541,7 @@ function Glance({ labels, figures }: { labels: string[]; figures: CompareFigures
       <div className={`rounded border px-3 py-2 ${risk.length ? 'border-danger/40 bg-danger-soft' : 'border-line bg-panel'}`} data-testid="glance-moisture">
         <dt className="text-xs font-semibold text-ink-soft">Moisture risk (ISO 13788)</dt>
         <dd className="mt-0.5 font-semibold">{!assessed ? 'Not assessed: no monthly climate' : risk.length ? `${risk.join(', ')}` : 'None of them'}</dd>
-        <dd className="text-xs text-ink-soft">{risk.length ? 'condensation or a surface risk; see the table' : 'A monthly method; local codes decide.'}</dd>
+        <dd className="text-xs text-ink-soft">{risk.length ? 'water accumulates over the year, or a surface risk; see the table' : 'A monthly method; local codes decide.'}</dd>
       </div>
     </dl>
   );

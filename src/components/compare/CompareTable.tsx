@@ -5,7 +5,7 @@ import { fixed } from '../workbench/format';
 import type { CompareFigures } from '../../lib/workbench/compare';
 import { dayClock } from '../../lib/workbench/figures';
 import { effectName, METRICS, type Effect, type MetricKey } from '../../lib/workbench/sensitivity';
-import { COMPARE_ROWS, bestOf, signed } from './rows';
+import { COMPARE_ROWS, bestOf, moistureRisk, signed } from './rows';
 import { alternativeColour } from './palette';
 
 export interface CompareTableProps {
@@ -86,15 +86,15 @@ export default function CompareTable({ labels, figures, baseline, onBaseline, st
           })}
           <tr className="border-b border-line/60" data-row="moisture">
             <th scope="row" className="px-3 py-1.5 text-left font-normal">
-              <Hint text="ISO 13788 under the exposure's monthly climate: the interstitial check (monthly Glaser method: does vapour condense in the build-up, and does it dry out within the year) and the surface check (f_Rsi against the mould and condensation limits). Marked where either finds a risk. A steady monthly method: it models no moisture storage, rain or air leakage; assess against local codes.">
+              <Hint text="ISO 13788 under the exposure's monthly climate: the interstitial check (monthly Glaser method: does vapour condense in the build-up, and does it dry out within the year) and the surface check (f_Rsi against the mould and condensation limits). Marked red where water accumulates over the year (the check fails) or the surface check finds a mould or condensation risk; condensation that dries out within the year passes the method and is shaded only. A steady monthly method: it models no moisture storage, rain or air leakage; assess against local codes.">
                 Moisture (ISO 13788)
               </Hint>
             </th>
             {figures.map((f, i) => {
               const m = f.moisture;
-              const risk = !!m && (m.verdict !== 'none' || m.mouldRisk || m.condensationRisk);
+              const risk = moistureRisk(m);
               return (
-                <td key={i} className={`px-3 py-1.5 text-right text-xs ${risk ? 'bg-danger-soft text-danger' : ''}`} data-alt={i} data-risk={risk ? 'true' : 'false'} title={m ? `${m.text} ${m.surfaceText}` : undefined}>
+                <td key={i} className={`px-3 py-1.5 text-right text-xs ${risk ? 'bg-danger-soft text-danger' : m?.verdict === 'driesOut' ? 'bg-warn-soft' : ''}`} data-alt={i} data-risk={risk ? 'true' : 'false'} title={m ? `${m.text} ${m.surfaceText}` : undefined}>
                   {m ? (
                     <>
                       <span className="font-semibold">{m.label}</span>

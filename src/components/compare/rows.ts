@@ -1,6 +1,7 @@
 // the rows of the compare table: what each figure is, how it is computed, which way is best,
 // and the best of a row and each alternative's difference to the baseline
 import type { CompareFigures } from '../../lib/workbench/compare';
+import type { MoistureFigures } from '../../lib/moisture/index';
 import { dayClock } from '../../lib/workbench/figures';
 
 export interface CompareRowDef {
@@ -152,4 +153,9 @@ export function signed(v: number, digits: number): string {
   const s = Math.abs(v).toFixed(digits);
   if (Number(s) === 0) return `±${s}`;
   return `${v < 0 ? '\u2212' : '+'}${s}`;
+}
+
+/** an ISO 13788 risk: water accumulates over the year (the check fails) or the surface check fails; drying out within the year passes */
+export function moistureRisk(m: MoistureFigures | null): boolean {
+  return !!m && (m.verdict === 'accumulates' || m.mouldRisk || m.condensationRisk);
 }

@@ -43,7 +43,7 @@ function blankDocument(): WorkbenchDocument {
   return { ...useWorkbench.getState().doc, layers: [] };
 }
 
-/** the assembly workbench: top bar, and the Build-up, Exposure and Response panes */
+/** the assembly workbench: top bar, and the Build-up, Exposure, Response and Moisture panes */
 export default function Workbench({ assemblyId }: { assemblyId: number }) {
   const [status, setStatus] = useState<'loading' | 'ready' | 'error'>('loading');
   const [loadError, setLoadError] = useState('');

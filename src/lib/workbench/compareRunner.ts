@@ -1,11 +1,11 @@
-// the main-thread side of compare and sensitivity: one worker pool of compare workers, the plan
-// cut into chunks of four runs (the batched engine's width) that the workers take in turn.
+// the main-thread side of compare and sensitivity: one worker pool of compare workers; a plan is cut
+// into one share per worker, in whole quads (the batched engine's width).
 import type { UploadedSeries, WorkbenchDocument } from '../schemas/workbench.ts';
 import type { CompareApi, CompareItem, CompareOutcome } from './compareApi.ts';
 import { WorkerPool, type PoolJob } from './pool.ts';
 import { perturbationPlan, type Metrics, type Perturbation } from './sensitivity.ts';
 
-/** runs per worker call: the batched engine interleaves four models */
+/** the batched engine interleaves four models: shares are whole multiples of this */
 export const CHUNK = 4;
 
 export class CompareRunner {
@@ -29,7 +29,11 @@ export class CompareRunner {
 
   /** a whole sensitivity plan of a document: metrics in plan order (perturbationPlan) */
   sensitivity(doc: WorkbenchDocument, upload: UploadedSeries | null, fraction: number, onProgress?: (fraction: number) => void): PoolJob<Metrics> {
-    const chunks = chunk<Perturbation | null>(perturbationPlan(doc.layers.length), CHUNK);
+    // one share per worker, in whole quads of the batched engine: each call validates the document and
+    // builds the base model once, so fewer, larger shares cost less (the engine reports progress within one)
+    const plan = perturbationPlan(doc.layers.length);
+    const share = CHUNK * Math.ceil(Math.ceil(plan.length / CHUNK) / this.pool.size);
+    const chunks = chunk<Perturbation | null>(plan, share);
     const job = this.pool.run(
       chunks.map((c) => (api, progress) => api.sensitivity(doc, upload, c, fraction, progress)),
       onProgress,

@@ -1,5 +1,5 @@
 // the Moisture pane: the monthly climate and the ISO 13788 check of the build-up under it
-import { useMemo, useState } from 'react';
+import { useDeferredValue, useMemo, useState } from 'react';
 import { useWorkbench } from '../../../lib/workbench/store';
 import { DEMO_CLIMATES, assessDocument, demoClimate, moistureIssues } from '../../../lib/moisture/index.ts';
 import ClimateEditor from './ClimateEditor';
@@ -7,8 +7,9 @@ import MoistureResult, { MoistureCautions } from './MoistureResult';
 import { layerFills } from './materialHex';
 
 export default function MoisturePane({ readOnly = false }: { readOnly?: boolean }) {
-  const layers = useWorkbench((s) => s.doc.layers);
-  const climate = useWorkbench((s) => s.doc.exposure.climate);
+  // the check follows edits at low priority, so dragging and typing in the other panes never wait for it
+  const layers = useDeferredValue(useWorkbench((s) => s.doc.layers));
+  const climate = useDeferredValue(useWorkbench((s) => s.doc.exposure.climate));
   const setExposure = useWorkbench((s) => s.setExposure);
   const [month, setMonth] = useState(1);
   const [editing, setEditing] = useState(false);

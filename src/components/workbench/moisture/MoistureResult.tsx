@@ -1,6 +1,6 @@
 // the result of the moisture check: verdict, month strip, Glaser diagrams (to scale and against
 // s_d), the table of months and the cautions. pure props, so the workbench and other pages can use it.
-import { useMemo, useRef } from 'react';
+import { memo, useMemo, useRef } from 'react';
 import {
   MOISTURE_CAUTIONS,
   MOISTURE_DEFERRAL,
@@ -55,7 +55,7 @@ export function MoistureCautions() {
 
 const g = (v: number) => (v === 0 ? '0' : v < 10 ? fixed(v, 1) : fixed(v, 0));
 
-export default function MoistureResult({ assessment, month, onMonth, fills }: { assessment: MoistureAssessment; month: number; onMonth(m: number): void; fills: string[] }) {
+function MoistureResult({ assessment, month, onMonth, fills }: { assessment: MoistureAssessment; month: number; onMonth(m: number): void; fills: string[] }) {
   const a = assessment;
   const m = a.glaser.months[month - 1];
   const s = a.surface.months[month - 1];
@@ -230,3 +230,5 @@ export default function MoistureResult({ assessment, month, onMonth, fills }: { 
     </div>
   );
 }
+
+export default memo(MoistureResult);
