@@ -11,6 +11,7 @@ function format(v: number, unit: string): string {
   if (unit === 'p') return `p = ${v.toFixed(3)}`;
   if (unit === 'fps') return `${v.toFixed(1)} fps`;
   if (unit === 'count') return `${v.toFixed(0)}`;
+  if (unit === 'periods') return `${v.toFixed(2)} periods`;
   return v < 0.01 ? v.toExponential(2) : v.toFixed(4);
 }
 

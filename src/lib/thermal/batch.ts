@@ -7,8 +7,8 @@
 // each lane does exactly the arithmetic thetaStep() does for its model, in the same order, so every result is
 // identical to simulate() of that model (the periodic start, outputs and energy account are shared code).
 import {
-  beginStepWith,
-  endStepWith,
+  beginStep,
+  endStep,
   finishRun,
   now,
   prepareRun,
@@ -26,17 +26,29 @@ import type { Model, Result, SimulateOptions } from './types.ts';
 /** models interleaved in one loop */
 export const LANES = 4;
 
-/** coefficients per row: six blocks of four lanes (lower, 1/den, upper′, E lower, E diag, E upper) */
-const ROW = 6 * LANES;
+/** one stepping of up to four models, packed row by row ([node][coefficient][lane]) and padded */
+export interface Packed {
+  /** the coefficients; per row either six blocks of four lanes (lower, 1/den, upper′, E lower, E diag, E upper) or,
+   * when E lower = −M lower everywhere (crank–nicolson: both are ½ of the conductance), five without E lower */
+  c: Float64Array;
+  five: boolean;
+}
 
 /**
- * one stepping of four models, packed row by row ([node][coefficient][lane]) and padded, so one row's 24
- * numbers sit in three cache lines. rows past a model's inside node are empty (zero inverse), and the explicit
- * upper coefficient of its inside node is 1 so the inside boundary term can ride in the next row's slot of x
- * (thetaStep adds bN there; 1·bN adds exactly the same number).
+ * packs the steppings of up to four models, so one row's numbers sit in a few cache lines. rows past a model's
+ * inside node are empty (zero inverse), and the explicit upper coefficient of its inside node is 1 so the inside
+ * boundary term can ride in the next row's slot of x (thetaStep adds bN there; 1·bN adds exactly the same number).
  */
-export function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Float64Array {
-  const c = new Float64Array(ROW * (rows + 1));
+export function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): Packed {
+  let five = true;
+  for (const s of steppings) {
+    if (!s) continue;
+    const lower = s.factor.lower;
+    const el = s.matrices.explicit.lower;
+    for (let i = 1; i < s.factor.n; i++) if (el[i] !== -lower[i]) five = false;
+  }
+  const width = five ? 5 * LANES : 6 * LANES;
+  const c = new Float64Array(width * (rows + 1));
   for (let k = 0; k < steppings.length; k++) {
     const s = steppings[k];
     if (!s) continue;
@@ -44,25 +56,37 @@ export function pack(steppings: ReadonlyArray<Stepping | null>, rows: number): F
     const { lower, inverse, upperPrime } = s.factor;
     const e = s.matrices.explicit;
     for (let i = 0; i < n; i++) {
-      const q = ROW * i + k;
+      const q = width * i + k;
       c[q] = lower[i];
       c[q + 4] = inverse[i];
       c[q + 8] = upperPrime[i];
-      c[q + 12] = e.lower[i];
-      c[q + 16] = e.diag[i];
-      c[q + 20] = i === n - 1 ? 1 : e.upper[i];
+      const eu = i === n - 1 ? 1 : e.upper[i];
+      if (five) {
+        c[q + 12] = e.diag[i];
+        c[q + 16] = eu;
+      } else {
+        c[q + 12] = e.lower[i];
+        c[q + 16] = e.diag[i];
+        c[q + 20] = eu;
+      }
     }
   }
-  return c;
+  return { c, five };
 }
 
 /**
- * one θ-step of four packed models in place: x ← M⁻¹(E x + b0 e₀ + bN e_last) per lane, the same operations
- * in the same order as thetaStep(), so each lane's result is identical. x is packed [node][lane];
- * x[LANES·n_k + k] must hold lane k's bN on entry (it is 0 again on exit). the old values of x ride in
- * registers (previous, current, next per lane) as in thetaStep().
+ * one θ-step of four packed models in place: x ← M⁻¹(E x + b0 e₀ + bN e_last) per lane, with the operations of
+ * thetaStep() in the same order, so each lane's result is identical to it. x is packed [node][lane];
+ * x[LANES·n_k + k] must hold lane k's bN on entry (it is 0 again on exit). the old values of x ride in registers
+ * (previous, current, next per lane) as in thetaStep().
  */
-export function packedStep(c: Float64Array, x: Float64Array, rows: number, b0: Float64Array): void {
+export function packedStep(p: Packed, x: Float64Array, rows: number, b0: Float64Array): void {
+  if (p.five) packedStepFive(p.c, x, rows, b0);
+  else packedStepSix(p.c, x, rows, b0);
+}
+
+// six coefficients a row: r = el·x₋ + ed·x + eu·x₊, d = (r − lower·d₋)/den, as thetaStep()
+function packedStepSix(c: Float64Array, x: Float64Array, rows: number, b0: Float64Array): void {
   let xp0 = x[0];
   let xp1 = x[1];
   let xp2 = x[2];
@@ -79,9 +103,9 @@ export function packedStep(c: Float64Array, x: Float64Array, rows: number, b0: F
   x[1] = d1;
   x[2] = d2;
   x[3] = d3;
-  for (let i = 1; i < rows; i++) {
-    const b = LANES * i;
-    const q = ROW * i;
+  let b = LANES;
+  let q = 6 * LANES;
+  for (let i = 1; i < rows; i++, b += LANES, q += 6 * LANES) {
     const xn0 = x[b + 4];
     const xn1 = x[b + 5];
     const xn2 = x[b + 6];
@@ -103,9 +127,64 @@ export function packedStep(c: Float64Array, x: Float64Array, rows: number, b0: F
     xc2 = xn2;
     xc3 = xn3;
   }
-  for (let i = rows - 2; i >= 0; i--) {
-    const b = LANES * i;
-    const q = ROW * i + 8;
+  backSubstitute(c, x, rows, 6 * LANES);
+}
+
+// five coefficients a row: el = −lower exactly, so el·x₋ + ed·x is written ed·x − lower·x₋ (the same number:
+// (−a)·b = −(a·b) and a + (−b) = a − b exactly in ieee arithmetic) and one load a lane is saved
+function packedStepFive(c: Float64Array, x: Float64Array, rows: number, b0: Float64Array): void {
+  let xp0 = x[0];
+  let xp1 = x[1];
+  let xp2 = x[2];
+  let xp3 = x[3];
+  let xc0 = x[4];
+  let xc1 = x[5];
+  let xc2 = x[6];
+  let xc3 = x[7];
+  let d0 = (c[12] * xp0 + c[16] * xc0 + b0[0]) * c[4];
+  let d1 = (c[13] * xp1 + c[17] * xc1 + b0[1]) * c[5];
+  let d2 = (c[14] * xp2 + c[18] * xc2 + b0[2]) * c[6];
+  let d3 = (c[15] * xp3 + c[19] * xc3 + b0[3]) * c[7];
+  x[0] = d0;
+  x[1] = d1;
+  x[2] = d2;
+  x[3] = d3;
+  let b = LANES;
+  let q = 5 * LANES;
+  for (let i = 1; i < rows; i++, b += LANES, q += 5 * LANES) {
+    const xn0 = x[b + 4];
+    const xn1 = x[b + 5];
+    const xn2 = x[b + 6];
+    const xn3 = x[b + 7];
+    const l0 = c[q];
+    const l1 = c[q + 1];
+    const l2 = c[q + 2];
+    const l3 = c[q + 3];
+    d0 = (c[q + 12] * xc0 - l0 * xp0 + c[q + 16] * xn0 - l0 * d0) * c[q + 4];
+    d1 = (c[q + 13] * xc1 - l1 * xp1 + c[q + 17] * xn1 - l1 * d1) * c[q + 5];
+    d2 = (c[q + 14] * xc2 - l2 * xp2 + c[q + 18] * xn2 - l2 * d2) * c[q + 6];
+    d3 = (c[q + 15] * xc3 - l3 * xp3 + c[q + 19] * xn3 - l3 * d3) * c[q + 7];
+    x[b] = d0;
+    x[b + 1] = d1;
+    x[b + 2] = d2;
+    x[b + 3] = d3;
+    xp0 = xc0;
+    xp1 = xc1;
+    xp2 = xc2;
+    xp3 = xc3;
+    xc0 = xn0;
+    xc1 = xn1;
+    xc2 = xn2;
+    xc3 = xn3;
+  }
+  backSubstitute(c, x, rows, 5 * LANES);
+}
+
+// x_i −= upper′_i · x_{i+1}, bottom to top, four lanes at a time
+function backSubstitute(c: Float64Array, x: Float64Array, rows: number, width: number): void {
+  let b = LANES * (rows - 2);
+  let q = width * (rows - 2) + 8;
+  for (; b >= 0; b -= LANES, q -= width) {
     x[b] -= c[q] * x[b + 4];
     x[b + 1] -= c[q + 1] * x[b + 5];
     x[b + 2] -= c[q + 2] * x[b + 6];
@@ -125,7 +204,7 @@ function runQuad(runs: Run[], options: SimulateOptions, progress: (steps: number
   const first = runs[0];
   const { steps, fullSteps, dt, remainder, duration, outputs, interval } = first;
   const rows = Math.max(...runs.map((r) => r.nodes)) + 1; // one spare row for the inside boundary terms
-  const sets = (which: (r: Run) => StepSet | null): Float64Array[] => {
+  const sets = (which: (r: Run) => StepSet | null): Packed[] => {
     const present = which(first);
     if (!present) return [];
     return [0, 1, 2].map((kind) =>
@@ -154,6 +233,10 @@ function runQuad(runs: Run[], options: SimulateOptions, progress: (steps: number
   );
   const states = runs.map((r) => r.st);
   const lastRow = runs.map((r) => r.nodes - 1);
+  // lanes under the very same boundaries (a compare or a sensitivity study: one exposure, several walls) have the
+  // same drives and boundary terms: computed once, for the first lane, and copied (the same numbers)
+  const boundaries = (r: Run): string => JSON.stringify([r.model.outside, r.model.inside]);
+  const shared = runs.every((r) => boundaries(r) === boundaries(first));
 
   const started = now();
   for (let n = 0; n < steps; n++) {
@@ -172,17 +255,34 @@ function runQuad(runs: Run[], options: SimulateOptions, progress: (steps: number
       const f = subs[j][1];
       const tSub = f === 1 ? tTo : tFrom + f * h;
       const lane = stepping[which];
+      if (shared) beginStep(states[0], lane[0] as Stepping, tSub);
+      const lead = states[0];
       for (let k = 0; k < lanes; k++) {
         const st = states[k];
         const last = lastRow[k];
-        beginStepWith(st, lane[k] as Stepping, tSub, x[k], x[LANES + k], x[LANES * (last - 1) + k], x[LANES * last + k]);
+        st.t0 = x[k];
+        st.t1 = x[LANES + k];
+        st.tm = x[LANES * (last - 1) + k];
+        st.tn = x[LANES * last + k];
+        if (!shared) beginStep(st, lane[k] as Stepping, tSub);
+        else if (k > 0) {
+          st.oAfter = lead.oAfter;
+          st.iAfter = lead.iAfter;
+          st.b0 = lead.b0;
+          st.bN = lead.bN;
+        }
         b0[k] = st.b0;
         x[LANES * (last + 1) + k] = st.bN;
       }
       packedStep(packed[which], x, rows, b0);
       for (let k = 0; k < lanes; k++) {
         const last = lastRow[k];
-        endStepWith(states[k], lane[k] as Stepping, x[k], x[LANES + k], x[LANES * (last - 1) + k], x[LANES * last + k]);
+        const st = states[k];
+        st.a0 = x[k];
+        st.a1 = x[LANES + k];
+        st.am = x[LANES * (last - 1) + k];
+        st.an = x[LANES * last + k];
+        endStep(st, lane[k] as Stepping);
       }
     }
     if (next < outputs && next * interval <= tTo + eps) {

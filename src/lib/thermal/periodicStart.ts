@@ -9,11 +9,13 @@
 // this is exact for the discrete scheme: stepping from x_0 repeats to round-off (the classical harmonic-balance
 // or "frequency-domain periodic steady state" of a linear time-invariant recurrence, e.g. Oppenheim & Schafer,
 // Discrete-Time Signal Processing, ch. 8, on the dft of periodic sequences).
-// harmonics whose drive is negligible on both sides (1e-13 of the largest) are skipped, so a sine needs two solves.
+// harmonics whose drive is negligible on both sides (1e-13 of the largest) are skipped, so a sine needs two solves;
+// drives of constants and sines only have their coefficients written directly, without the transform.
 import { drivingTemperature, type BoundarySide } from './boundary.ts';
 import { dft } from './fourier.ts';
 import type { Mesh } from './mesh.ts';
 import { assembleTheta, type ThetaMatrices } from './operator.ts';
+import type { CompiledSignal } from './signals.ts';
 
 /** the largest number of samples per period the frequency-domain start uses; beyond it the step is coarsened */
 export const MAX_PERIOD_SAMPLES = 1 << 18;
@@ -40,6 +42,31 @@ export function periodSampling(period: number, dt: number): { samples: number; s
 }
 
 /**
+ * the dft of a side's sampled drive written directly when it is made of constants and sines only (the sampled
+ * sine a·cos(w(t − p)) with w = 2πm/P has the single coefficient N·a/2·e^{−iwp} at k = m); false when it holds
+ * a series or a sine at or above the sampling's nyquist harmonic, which the transform then handles
+ */
+function analyticDrive(side: BoundarySide, N: number, period: number, re: Float64Array, im: Float64Array): boolean {
+  const parts: Array<[CompiledSignal, number]> = [[side.air, 1]];
+  if (side.irradiance) parts.push([side.irradiance, side.solarGain]);
+  if (side.netLoss) parts.push([side.netLoss, -side.lossGain]);
+  for (const [signal] of parts) {
+    if (signal.kind === 2) return false;
+    if (signal.kind === 1 && 2 * Math.round((period * signal.w) / (2 * Math.PI)) >= N) return false;
+  }
+  for (const [signal, gain] of parts) {
+    if (signal.kind === 0) re[0] += N * gain * signal.a;
+    else {
+      const m = Math.round((period * signal.w) / (2 * Math.PI));
+      re[0] += N * gain * signal.a;
+      re[m] += 0.5 * N * gain * signal.b * Math.cos(signal.w * signal.p);
+      im[m] -= 0.5 * N * gain * signal.b * Math.sin(signal.w * signal.p);
+    }
+  }
+  return true;
+}
+
+/**
  * writes into out the state at t = 0 of the periodic solution of the θ-scheme with step P/N.
  * matrices may be passed when the caller already has them for that step.
  */
@@ -57,30 +84,32 @@ export function periodicState(
   const m = matrices ?? assembleTheta(mesh, outside, inside, stepSize, theta);
   const n = mesh.cells + 1;
 
-  // drives at the step times, both sides in one complex transform (outside real, inside imaginary)
-  const zr = new Float64Array(N);
-  const zi = new Float64Array(N);
-  for (let j = 0; j < N; j++) {
-    const t = j * stepSize;
-    zr[j] = drivingTemperature(outside, t);
-    zi[j] = drivingTemperature(inside, t);
-  }
-  dft(zr, zi);
   const half = Math.floor(N / 2);
-  // split: O_k = (Z_k + conj Z_{N−k})/2, I_k = (Z_k − conj Z_{N−k})/(2i)
   const oRe = new Float64Array(half + 1);
   const oIm = new Float64Array(half + 1);
   const iRe = new Float64Array(half + 1);
   const iIm = new Float64Array(half + 1);
-  let largest = 0;
-  for (let k = 0; k <= half; k++) {
-    const j = k === 0 ? 0 : N - k;
-    oRe[k] = 0.5 * (zr[k] + zr[j]);
-    oIm[k] = 0.5 * (zi[k] - zi[j]);
-    iRe[k] = 0.5 * (zi[k] + zi[j]);
-    iIm[k] = -0.5 * (zr[k] - zr[j]);
-    largest = Math.max(largest, Math.hypot(oRe[k], oIm[k]), Math.hypot(iRe[k], iIm[k]));
+  if (!analyticDrive(outside, N, period, oRe, oIm) || !analyticDrive(inside, N, period, iRe, iIm)) {
+    // drives at the step times, both sides in one complex transform (outside real, inside imaginary)
+    const zr = new Float64Array(N);
+    const zi = new Float64Array(N);
+    for (let j = 0; j < N; j++) {
+      const t = j * stepSize;
+      zr[j] = drivingTemperature(outside, t);
+      zi[j] = drivingTemperature(inside, t);
+    }
+    dft(zr, zi);
+    // split: O_k = (Z_k + conj Z_{N−k})/2, I_k = (Z_k − conj Z_{N−k})/(2i)
+    for (let k = 0; k <= half; k++) {
+      const j = k === 0 ? 0 : N - k;
+      oRe[k] = 0.5 * (zr[k] + zr[j]);
+      oIm[k] = 0.5 * (zi[k] - zi[j]);
+      iRe[k] = 0.5 * (zi[k] + zi[j]);
+      iIm[k] = -0.5 * (zr[k] - zr[j]);
+    }
   }
+  let largest = 0;
+  for (let k = 0; k <= half; k++) largest = Math.max(largest, Math.hypot(oRe[k], oIm[k]), Math.hypot(iRe[k], iIm[k]));
   const negligible = 1e-13 * largest;
 
   const ml = m.implicit.lower;

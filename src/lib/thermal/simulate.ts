@@ -89,7 +89,8 @@ export interface RunState {
   insideDrive: number;
   inOutside: number;
   outInside: number;
-  // the step in progress: drives at its end, boundary terms, and the surface temperatures before it
+  // the step in progress: drives at its end, boundary terms, and the surface temperatures before (t0, t1, tm, tn:
+  // the two outside nodes, the two inside nodes) and after it (a0, a1, am, an), set by the caller of beginStep/endStep
   oAfter: number;
   iAfter: number;
   b0: number;
@@ -98,25 +99,32 @@ export interface RunState {
   t1: number;
   tm: number;
   tn: number;
+  a0: number;
+  a1: number;
+  am: number;
+  an: number;
 }
 
-/** first half of a step to tTo: drives and boundary terms, given the surface temperatures before it */
-export function beginStepWith(st: RunState, s: Stepping, tTo: number, t0: number, t1: number, tm: number, tn: number): void {
+/**
+ * first half of a step to tTo: drives and boundary terms (the caller has put the surface temperatures before it
+ * in st.t0, t1, tm, tn; numbers pass through fields rather than arguments so nothing is boxed in the time loop)
+ */
+export function beginStep(st: RunState, s: Stepping, tTo: number): void {
   st.oAfter = drivingTemperature(st.outside, tTo);
   st.iAfter = drivingTemperature(st.inside, tTo);
   st.b0 = boundaryTerm(st.outside, s.theta, st.outsideDrive, st.oAfter);
   st.bN = boundaryTerm(st.inside, s.theta, st.insideDrive, st.iAfter);
-  st.t0 = t0;
-  st.t1 = t1;
-  st.tm = tm;
-  st.tn = tn;
 }
 
 /**
- * second half of a step, after the solve, given the surface temperatures after it: the θ-weighted surface fluxes
- * from each surface node's own energy equation, so the account closes to round-off
+ * second half of a step, after the solve (the caller has put the surface temperatures after it in st.a0, a1, am,
+ * an): the θ-weighted surface fluxes from each surface node's own energy equation, so the account closes to round-off
  */
-export function endStepWith(st: RunState, s: Stepping, a0: number, a1: number, am: number, an: number): void {
+export function endStep(st: RunState, s: Stepping): void {
+  const a0 = st.a0;
+  const a1 = st.a1;
+  const am = st.am;
+  const an = st.an;
   const last = st.temperature.length - 1;
   const mesh = st.mesh;
   const out = st.outside;
@@ -149,9 +157,17 @@ export function endStepWith(st: RunState, s: Stepping, a0: number, a1: number, a
 export function advance(st: RunState, s: Stepping, tTo: number): void {
   const T = st.temperature;
   const last = T.length - 1;
-  beginStepWith(st, s, tTo, T[0], T[1], T[last - 1], T[last]);
+  st.t0 = T[0];
+  st.t1 = T[1];
+  st.tm = T[last - 1];
+  st.tn = T[last];
+  beginStep(st, s, tTo);
   thetaStep(s.factor, s.matrices.explicit, T, st.b0, st.bN);
-  endStepWith(st, s, T[0], T[1], T[last - 1], T[last]);
+  st.a0 = T[0];
+  st.a1 = T[1];
+  st.am = T[last - 1];
+  st.an = T[last];
+  endStep(st, s);
 }
 
 /** the stepping a sub-step of kind `which` uses (0 main, 1 backward-euler quarter, 2 half) */
@@ -212,6 +228,10 @@ function runState(mesh: Mesh, outside: BoundarySide, inside: BoundarySide, T: Fl
     t1: 0,
     tm: 0,
     tn: 0,
+    a0: 0,
+    a1: 0,
+    am: 0,
+    an: 0,
   };
 }
 
@@ -285,8 +305,10 @@ export function prepareRun(model: Model, options: SimulateOptions = {}): Run {
 
   const kinds = plan(model, outside, inside, theta, dt, duration, steps, restarts);
   const account = schemeAccount(kinds, theta);
-  const full = stepSet(mesh, outside, inside, dt, theta, restarts);
-  const tail = remainder > 0 ? stepSet(mesh, outside, inside, remainder, theta, restarts) : null;
+  // restart steppings only where the plan (or the periodic start's own plan of one period) can use them
+  const anyRestart = kinds.some((k) => k !== STEP_FULL);
+  const full = stepSet(mesh, outside, inside, dt, theta, restarts && (anyRestart || model.initial.kind === 'periodic'));
+  const tail = remainder > 0 ? stepSet(mesh, outside, inside, remainder, theta, restarts && kinds[steps - 1] !== STEP_FULL) : null;
 
   // initial state
   const T = new Float64Array(nodes);

@@ -72,7 +72,7 @@ describe('simulateBatch', () => {
       const single = simulate(m);
       expect(difference(single, batch[i])).toBeLessThanOrEqual(1e-12);
     });
-  });
+  }, 60_000);
 
   it('reports progress to 1 and stops when cancelled', () => {
     const models = [base(), base({ layers: timberAnnexWall }), base({ layers: heavyWall }), base()];
@@ -82,5 +82,5 @@ describe('simulateBatch', () => {
     expect(seen[seen.length - 1]).toBe(1);
     for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThanOrEqual(seen[i - 1]);
     expect(() => simulateBatch(models, { shouldCancel: () => true, progressEvery: 16 })).toThrow(SimulationCancelled);
-  });
+  }, 60_000);
 });

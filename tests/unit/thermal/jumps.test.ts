@@ -103,7 +103,7 @@ describe('jump detection on the driving temperature', () => {
   });
 });
 
-describe('simulate: a sol-air day at coarse and fine steps', () => {
+describe('simulate: a sol-air day at coarse and fine steps', { timeout: 60_000 }, () => {
   for (const [label, layers] of [
     ['the heavy demo wall', heavyDemoWall],
     ['the timber annex wall', timberAnnexWall],
@@ -125,7 +125,7 @@ describe('simulate: a sol-air day at coarse and fine steps', () => {
   }
 });
 
-describe('simulate: a genuine step change', () => {
+describe('simulate: a genuine step change', { timeout: 60_000 }, () => {
   // 1 m of dense concrete behind a 0.04 m²K/W film, outside air 0 °C then 20 °C at 10 h 10 min (mid-step)
   const values = Array.from({ length: 24 * 60 + 1 }, (_, i) => (i <= 610 ? 0 : 20));
   const stepModel = (timeStep: number, scheme: Model['scheme'] = 'crank-nicolson'): Model => ({

@@ -26,7 +26,7 @@ function repeatError(values: number[], perPeriod: number): number {
 /** the contract's tolerance: 0.1 % of the inside-flux amplitude or 0.001 W/m², whichever is larger */
 const tolerance = (flux: number[]): number => Math.max(0.001, 0.001 * ((Math.max(...flux) - Math.min(...flux)) / 2));
 
-describe('periodic start', () => {
+describe('periodic start', { timeout: 60_000 }, () => {
   it('gives the heavy wall the ISO 13786 decrement within 1 % and lag within 10 min with no warm-up', () => {
     // heavy: about 590 kJ/m²K, decay over weeks; the first simulated day is read directly
     const r = simulate(periodicModel());
