@@ -26,7 +26,7 @@ function FiguresTable({ run, exposure }: { run: RunDone; exposure: Exposure }) {
           {f.periodic.checked ? (
             <>
               <strong>{f.periodic.maxDifference > ACCURACY_TOLERANCE ? 'The start still shows in the last reported day. ' : 'The start is forgotten by the last reported day. '}</strong>
-              A second run from another start differs there by up to {fixed(f.periodic.maxDifference * 100, 2)} % of the inside heat flux amplitude (criterion: at most {ACCURACY_TOLERANCE * 100} %)
+              A second run from another start differs {f.periodic.checkedDay !== undefined && f.periodic.checkedDay < exposure.days ? `on reported day ${f.periodic.checkedDay} (a bound for the later days, as the start's effect only fades)` : 'there'} by up to {fixed(f.periodic.maxDifference * 100, 2)} % of the inside heat flux amplitude (criterion: at most {ACCURACY_TOLERANCE * 100} %)
               {f.periodic.maxDifference > ACCURACY_TOLERANCE ? '; add warm-up days.' : '.'} An uploaded series does not repeat, so no periodic state is claimed.
             </>
           ) : (

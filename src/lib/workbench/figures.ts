@@ -90,8 +90,8 @@ export interface FigureInput {
   scheme?: string;
   /** the discretisation-error estimate, when the run made one */
   accuracy?: AccuracyEstimate | null;
-  /** non-repeating series only: the inside flux of a second run from another start, for the start-up memory */
-  otherStartInsideFlux?: ArrayLike<number> | null;
+  /** non-repeating series only: a second run from another start (the same output times from t = 0, possibly shorter), for the start-up memory */
+  otherStart?: { time: ArrayLike<number>; insideFlux: ArrayLike<number> } | null;
   /** the indoor air is constant */
   indoorConstant: boolean;
 }
@@ -165,8 +165,10 @@ export interface RunFigures {
    * (checked on the last two days when there are two); start 'warm-up': a non-repeating series,
    * where `maxDifference` is how much the start still moves the last reported day's inside flux
    * (a second run from another start), relative to its amplitude; "reached" is never claimed.
+   * `checkedDay` is the reported day (1-based) the difference was measured on: the last one, or for
+   * runs longer than a week the seventh (the start's effect only fades after it: an upper bound).
    */
-  periodic: { start: 'periodic' | 'warm-up'; checked: boolean; reached: boolean; maxDifference: number; criterion: string };
+  periodic: { start: 'periodic' | 'warm-up'; checked: boolean; reached: boolean; maxDifference: number; criterion: string; checkedDay?: number };
   /** how far the simulated figures can be read as periodic ones */
   notes: string[];
 }
@@ -273,14 +275,18 @@ export function figures(input: FigureInput): RunFigures {
       periodic = { start: 'periodic', checked: true, reached: rel <= ACCURACY_TOLERANCE, maxDifference: rel, criterion };
     }
   } else {
-    const criterion = `a second run from another start (uniform at the mean of the two air temperatures at time zero) differs on the last reported day's inside heat flux by at most ${pct} of its amplitude`;
-    const other = input.otherStartInsideFlux;
-    if (!other) periodic = { start: 'warm-up', checked: false, reached: false, maxDifference: NaN, criterion: `${criterion} (not checked)` };
+    const criterion = `a second run from another start (uniform at the mean of the two air temperatures at time zero) differs on the inside heat flux of the last reported day (of the seventh on longer runs, a bound for the later ones) by at most ${pct} of its amplitude`;
+    const other = input.otherStart;
+    if (!other || other.time.length < 2) periodic = { start: 'warm-up', checked: false, reached: false, maxDifference: NaN, criterion: `${criterion} (not checked)` };
     else {
+      const otherEnd = other.time[other.time.length - 1];
+      const from = otherEnd - period;
       let maxDiff = 0;
-      for (let k = 0; k < n; k++) if (time[k] >= lastFrom - 1e-6) maxDiff = Math.max(maxDiff, Math.abs(input.insideFlux[k] - other[k]));
+      for (let k = 0; k < Math.min(n, other.time.length); k++) {
+        if (time[k] >= from - 1e-6 && Math.abs(time[k] - other.time[k]) < 1e-6) maxDiff = Math.max(maxDiff, Math.abs(input.insideFlux[k] - other.insideFlux[k]));
+      }
       // never "reached": a non-repeating series has no periodic state; this says only that the start is forgotten
-      periodic = { start: 'warm-up', checked: true, reached: false, maxDifference: maxDiff / scale, criterion };
+      periodic = { start: 'warm-up', checked: true, reached: false, maxDifference: maxDiff / scale, criterion, checkedDay: Math.round((otherEnd - reportStart) / period) };
     }
   }
 
@@ -361,6 +367,7 @@ export function summaryOf(f: RunFigures): Record<string, number | string | null>
     lowestInterfaceC: f.lowestInterface ? round(f.lowestInterface.value, 3) : null,
     lowestInterfaceAt: f.lowestInterface ? `${f.lowestInterface.name}, ${dayClock(f.lowestInterface.time)}` : null,
     moistureVerdict: f.moisture ? f.moisture.verdict : null,
+    moistureVerdictLabel: f.moisture ? f.moisture.label : null,
     moistureMaxAccumulatedGm2: f.moisture ? round(f.moisture.maxAccumulated, 2) : null,
     moistureDriesOut: f.moisture ? (f.moisture.driesOut ? 'yes' : 'no') : null,
     moistureMaxAt: f.moisture?.maxAtPlane ?? null,

@@ -110,7 +110,9 @@ export function simulateDocument(input: unknown, upload?: UploadedSeries | null,
   const repeating = isRepeatingExposure(doc.exposure);
   // the share of the work each run takes, for one progress bar over all of them
   const coarseShare = 0.15;
-  const otherShare = repeating ? 0 : 0.45;
+  // the second start runs the warm-up and at most a week of the reported days (its effect only fades after that)
+  const otherModel = repeating ? null : otherStartModel(model, effectiveWarmupDays(doc.exposure) * DAY + 7 * DAY);
+  const otherShare = otherModel ? 0.6 * (otherModel.duration / model.duration) * (1 - coarseShare) : 0;
   const mainShare = 1 - coarseShare - otherShare;
   const progress = (from: number, share: number) => (options.onProgress ? (f: number) => options.onProgress!(from + share * f) : undefined);
   const run = (m: ModelData, from: number, share: number) =>
@@ -128,7 +130,7 @@ export function simulateDocument(input: unknown, upload?: UploadedSeries | null,
     result = run(model, 0, mainShare);
     coarseModel = coarserModel(model);
     coarse = coarseModel ? run(coarseModel, mainShare, coarseShare) : null;
-    if (!repeating) other = run(otherStartModel(model), mainShare + coarseShare, otherShare);
+    if (otherModel) other = run(otherModel, mainShare + coarseShare, otherShare);
   } catch (e) {
     if (e instanceof SimulationCancelled) return { kind: 'cancelled' };
     throw e;
@@ -161,7 +163,7 @@ export function simulateDocument(input: unknown, upload?: UploadedSeries | null,
     outdoorPeriodic: repeating && out.mode !== 'series',
     scheme: schemeOf(result),
     accuracy: coarse && coarseModel ? accuracyOf(s.time, s.insideFlux, reportStart, coarse, coarseModel) : null,
-    otherStartInsideFlux: other ? other.series.insideFlux : null,
+    otherStart: other ? { time: other.series.time, insideFlux: other.series.insideFlux } : null,
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
   return { kind: 'done', doc, model, result, figures: runFigures, reportStart, solAir: solarFull, interfaceNames };
@@ -250,12 +252,12 @@ export function coarserModel(model: ModelData): ModelData | null {
   return { ...model, timeStep, outputInterval: interval, mesh: { ...model.mesh, maxCellSize: model.mesh.maxCellSize * 2, minCellsPerLayer: Math.max(2, Math.floor(model.mesh.minCellsPerLayer / 2)) } };
 }
 
-/** the same run from a uniform start at the mean of the two air temperatures at time zero (a start as wrong as a plausible guess) */
-function otherStartModel(model: ModelData): ModelData {
+/** the same run from a uniform start at the mean of the two air temperatures at time zero (a start as wrong as a plausible guess), up to `until` s */
+function otherStartModel(model: ModelData, until: number): ModelData {
   const outside = compileSignal(model.outside.air);
   const inside = compileSignal(model.inside.air);
   const temperature = (signalAt(outside, 0) + signalAt(inside, 0)) / 2;
-  return { ...model, initial: { kind: 'uniform', temperature } };
+  return { ...model, initial: { kind: 'uniform', temperature }, duration: Math.min(model.duration, until) };
 }
 
 function gcd(a: number, b: number): number {

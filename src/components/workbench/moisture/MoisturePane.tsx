@@ -1,19 +1,35 @@
 // the Moisture pane: the monthly climate and the ISO 13788 check of the build-up under it
-import { useDeferredValue, useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { useWorkbench } from '../../../lib/workbench/store';
 import { DEMO_CLIMATES, assessDocument, demoClimate, moistureIssues } from '../../../lib/moisture/index.ts';
 import ClimateEditor from './ClimateEditor';
 import MoistureResult, { MoistureCautions } from './MoistureResult';
 import { layerFills } from './materialHex';
 
+/** ms an edit must rest before the moisture check follows it */
+const SETTLE_MS = 400;
+
+/** the value once it has stopped changing for `ms` (the first value at once) */
+function useSettled<T>(value: T, ms: number): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    if (Object.is(settled, value)) return;
+    const timer = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(timer);
+  }, [value, settled, ms]);
+  return settled;
+}
+
 export default function MoisturePane({ readOnly = false }: { readOnly?: boolean }) {
-  // the check follows edits at low priority, so dragging and typing in the other panes never wait for it
-  const layers = useDeferredValue(useWorkbench((s) => s.doc.layers));
-  const climate = useDeferredValue(useWorkbench((s) => s.doc.exposure.climate));
+  const liveLayers = useWorkbench((s) => s.doc.layers);
+  const climate = useWorkbench((s) => s.doc.exposure.climate);
+  // the check follows the build-up once edits pause, so a drag or a run of keystrokes never waits for it
+  const layers = useSettled(liveLayers, SETTLE_MS);
+  const checkedClimate = useSettled(climate, SETTLE_MS);
   const setExposure = useWorkbench((s) => s.setExposure);
   const [month, setMonth] = useState(1);
   const [editing, setEditing] = useState(false);
-  const doc = useMemo(() => ({ layers, exposure: { climate } }), [layers, climate]);
+  const doc = useMemo(() => ({ layers, exposure: { climate: checkedClimate } }), [layers, checkedClimate]);
   const issues = useMemo(() => moistureIssues(doc), [doc]);
   const assessment = useMemo(() => (issues.length === 0 ? assessDocument(doc) : null), [doc, issues]);
   const fills = useMemo(() => layerFills(layers), [layers]);
