@@ -45,19 +45,18 @@ const guard = defineMiddleware(async (context, next) => {
       return refuse(403, 'cross_site', 'Refused', 'Requests that change something must come from Wallpulse’s own pages.');
     }
     const type = request.headers.get('content-type');
-    if (hasBody(request)) {
-      if (isApi && !isJsonContentType(type)) {
-        return apiError(415, 'unsupported_media_type', 'Send the request body as JSON, with Content-Type: application/json.');
+    if (isApi && hasBody(request) && !isJsonContentType(type)) {
+      return apiError(415, 'unsupported_media_type', 'Send the request body as JSON, with Content-Type: application/json.');
+    }
+    // pages take only what an HTML form sends (a form always names its content type)
+    if (!isApi) {
+      if (!isFormContentType(type)) {
+        return problemPage(415, 'This form could not be read', ['The page accepts only what its own form sends. Go back, and send the form again from the page.']);
       }
-      if (!isApi) {
-        if (!isFormContentType(type)) {
-          return problemPage(415, 'This form could not be read', ['The page accepts only what its own form sends. Go back, and send the form again from the page.']);
-        }
-        try {
-          await request.clone().formData();
-        } catch {
-          return problemPage(400, 'This form could not be read', ['The form arrived damaged. Go back, and send it again from the page.']);
-        }
+      try {
+        await request.clone().formData();
+      } catch {
+        return problemPage(400, 'This form could not be read', ['The form arrived damaged. Go back, and send it again from the page.']);
       }
     }
   }
