@@ -2,10 +2,10 @@
 // reset and sign-up limits that hang on it (kept in MariaDB, so two instances count together),
 // and where "next" may send the browser after signing in (only this origin)
 import { describe, it, expect, beforeAll, beforeEach, afterAll } from 'vitest';
-import { desc, eq, like, or } from 'drizzle-orm';
+import { desc, eq, sql } from 'drizzle-orm';
 import { closeTestDb, sessionFor, testDb, SESSION_COOKIE } from '../support/db';
 import { baseUrl } from '../support/browser';
-import { auditLog, outboundMail, rateLimits } from '../../src/lib/server/db/schema';
+import { auditLog, outboundMail } from '../../src/lib/server/db/schema';
 import { startApp, type AppProcess } from '../../src/stack/app';
 import { freePort } from '../../src/stack/util';
 import { DEMO, PASSWORD, makeUser, uid } from './teamFixtures';
@@ -21,7 +21,10 @@ beforeAll(async () => {
 
 /** the limits this file used up must not reach the files after it (they come from 127.0.0.1 too) */
 async function forgetLimits() {
-  await testDb().delete(rateLimits).where(or(like(rateLimits.key, '%127.0.0.1%'), like(rateLimits.key, '%example.test%'), like(rateLimits.key, '%203.0.113.%')));
+  await testDb()
+    .execute(sql`delete from rate_limits where \`key\` like '%127.0.0.1%' or \`key\` like '%example.test%' or \`key\` like '%203.0.113.%'`)
+    // a build without the shared limits has no such table
+    .catch(() => undefined);
 }
 
 beforeEach(forgetLimits);
