@@ -3,6 +3,7 @@
 // uses the app at WALLPULSE_BASE_URL (with DATABASE_URL); run.ts starts one when none is given.
 import { createRequire } from 'node:module';
 import os from 'node:os';
+import { readFileSync, readdirSync, readlinkSync } from 'node:fs';
 import type { BenchRow } from './engine.ts';
 
 export const LOAD_GROUP = 'load (autocannon on 127.0.0.1)';
@@ -43,6 +44,56 @@ interface Measured {
   answers: number;
   non2xx: Record<string, number>;
   errors: number;
+  /** CPU time per answer of the app and of the database server, ms (NaN where unknown) */
+  appCpu?: number;
+  dbCpu?: number;
+}
+
+/** the process listening on a loopback TCP port (Linux /proc), or null where that cannot be read */
+function pidListeningOn(port: number): number | null {
+  try {
+    const hex = port.toString(16).toUpperCase().padStart(4, '0');
+    const inodes = new Set<string>();
+    for (const file of ['/proc/net/tcp', '/proc/net/tcp6']) {
+      for (const line of readFileSync(file, 'utf8').split('\n').slice(1)) {
+        const f = line.trim().split(/\s+/);
+        // local address ends in :PORT, state 0A is LISTEN
+        if (f[1]?.endsWith(`:${hex}`) && f[3] === '0A') inodes.add(f[9]);
+      }
+    }
+    for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+      let fds: string[];
+      try {
+        fds = readdirSync(`/proc/${pid}/fd`);
+      } catch {
+        continue;
+      }
+      for (const fd of fds) {
+        try {
+          const m = /^socket:\[(\d+)\]$/.exec(readlinkSync(`/proc/${pid}/fd/${fd}`));
+          if (m && inodes.has(m[1])) return Number(pid);
+        } catch {
+          // gone meanwhile
+        }
+      }
+    }
+  } catch {
+    // not Linux, or /proc not readable
+  }
+  return null;
+}
+
+/** CPU time a process has used, ms (user + system), or NaN */
+function cpuMs(pid: number | null): number {
+  if (pid === null) return NaN;
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    // fields 14 and 15 of stat (utime, stime), in clock ticks of 10 ms on Linux
+    return (Number(f[11]) + Number(f[12])) * 10;
+  } catch {
+    return NaN;
+  }
 }
 
 /** nearest-rank percentile of sorted values */
@@ -125,22 +176,31 @@ export async function loadBench(): Promise<BenchRow[]> {
         body: JSON.stringify({ email: 'tomas@demo.wallpulse.test', password: DEMO_PASSWORD }),
       },
     ];
+    // the CPU each answer costs the app and the database: a figure that holds on a busy machine too
+    const appPid = pidListeningOn(Number(new URL(base).port));
+    const dbPort = Number(new URL(process.env.DATABASE_URL ?? 'mysql://x@127.0.0.1:3306/x').port || 3306);
+    const dbPid = pidListeningOn(dbPort);
     const measured: Measured[] = [];
     for (const t of targets) {
       await blast(base, t, { amount: 50 }); // warm-up: code paths compiled, pools filled
-      measured.push(await blast(base, t, { overallRate: RATE, duration: SECONDS }));
+      const [app0, db0] = [cpuMs(appPid), cpuMs(dbPid)];
+      const m = await blast(base, t, { overallRate: RATE, duration: SECONDS });
+      m.appCpu = (cpuMs(appPid) - app0) / m.answers;
+      m.dbCpu = (cpuMs(dbPid) - db0) / m.answers;
+      measured.push(m);
     }
 
     // the machine's own load says how far the figures stand for the app alone
     const load = os.loadavg()[0];
     console.log(`\n[${LOAD_GROUP}: ${RATE} requests/s over ${CONNECTIONS} connections, ${SECONDS} s per target; load average ${load.toFixed(1)} on ${os.cpus().length} cores]`);
     const w = Math.max(...measured.map((m) => m.name.length)) + 2;
-    console.log(`  ${'target'.padEnd(w)}${'p50'.padStart(9)}${'p95'.padStart(9)}${'p99'.padStart(9)}${'answers/s'.padStart(11)}  not 2xx`);
+    console.log(`  ${'target'.padEnd(w)}${'p50'.padStart(9)}${'p95'.padStart(9)}${'p99'.padStart(9)}${'answers/s'.padStart(11)}${'app CPU'.padStart(10)}${'db CPU'.padStart(9)}  not 2xx`);
+    const cpu = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ? '—' : `${v.toFixed(1)} ms`);
     for (const m of measured) {
       const bad = Object.entries(m.non2xx).map(([code, n]) => `${n}× ${code}`);
       if (m.errors) bad.push(`${m.errors} errors`);
       console.log(
-        `  ${m.name.padEnd(w)}${`${m.p50.toFixed(0)} ms`.padStart(9)}${`${m.p95.toFixed(0)} ms`.padStart(9)}${`${m.p99.toFixed(0)} ms`.padStart(9)}${m.rate.toFixed(0).padStart(11)}  ${bad.join(', ') || '—'}`,
+        `  ${m.name.padEnd(w)}${`${m.p50.toFixed(0)} ms`.padStart(9)}${`${m.p95.toFixed(0)} ms`.padStart(9)}${`${m.p99.toFixed(0)} ms`.padStart(9)}${m.rate.toFixed(0).padStart(11)}${cpu(m.appCpu).padStart(10)}${cpu(m.dbCpu).padStart(9)}  ${bad.join(', ') || '—'}`,
       );
     }
     return measured.map((m, i) => {

@@ -209,6 +209,8 @@ describe('restoring a job from its backup', () => {
     expect((await restore(teamId, DEMO.checker, text)).status).toBe(403);
     const stranger = await makeUser({ teamId: await makeTeam(), role: 'admin' });
     expect((await restore(teamId, stranger.id, text)).status).toBe(404);
+    const anonymous = await fetch(`${baseUrl()}/api/teams/${teamId}/import`, { method: 'POST', headers: { origin: new URL(baseUrl()).origin, 'content-type': 'application/json' }, body: text });
+    expect(anonymous.status).toBe(401);
     expect(await tableCounts()).toEqual(before);
   });
 });

@@ -97,6 +97,8 @@ const ROUTES: Route[] = [
   { path: '/api/materials/import', methods: ['POST'], kind: 'api', objects: true, real: true },
   { path: '/api/uploads', methods: ['GET', 'POST'], kind: 'api', objects: true, real: true },
   { path: '/api/uploads/{upload}', methods: ['GET'], kind: 'api', real: true },
+  { path: '/api/jobs/{job}/export', methods: ['GET'], kind: 'api', real: true },
+  { path: '/api/teams/{team}/import', methods: ['POST'], kind: 'api', objects: true, real: true },
   // the form pages (and the sign-out button's endpoint)
   { path: '/signin', methods: ['POST'], kind: 'form', real: true },
   { path: '/signup', methods: ['POST'], kind: 'form', real: true },
