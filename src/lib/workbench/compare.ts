@@ -111,7 +111,7 @@ export function compareRun(doc: WorkbenchDocument, model: ModelData, result: Res
     outdoorPeriodic: isRepeatingExposure(doc.exposure) && out.mode !== 'series',
     scheme: schemeOf(result),
     accuracy: coarse ? accuracyOf(s.time, s.insideFlux, reportStart, coarse.result, coarse.model) : null,
-    otherStartInsideFlux: null,
+    otherStart: null,
     indoorConstant: doc.exposure.indoor.mode === 'constant',
   });
   const end = s.time.length > 0 ? s.time[s.time.length - 1] : 0;

@@ -367,7 +367,6 @@ export function summaryOf(f: RunFigures): Record<string, number | string | null>
     lowestInterfaceC: f.lowestInterface ? round(f.lowestInterface.value, 3) : null,
     lowestInterfaceAt: f.lowestInterface ? `${f.lowestInterface.name}, ${dayClock(f.lowestInterface.time)}` : null,
     moistureVerdict: f.moisture ? f.moisture.verdict : null,
-    moistureVerdictLabel: f.moisture ? f.moisture.label : null,
     moistureMaxAccumulatedGm2: f.moisture ? round(f.moisture.maxAccumulated, 2) : null,
     moistureDriesOut: f.moisture ? (f.moisture.driesOut ? 'yes' : 'no') : null,
     moistureMaxAt: f.moisture?.maxAtPlane ?? null,
