@@ -4,7 +4,7 @@
 // app waiting for a connection that never came.)
 import { describe, it, expect, afterAll } from 'vitest';
 import { and, eq } from 'drizzle-orm';
-import { closeTestDb, testDb } from '../support/db';
+import { closeTestDb, sessionFor, testDb, SESSION_COOKIE } from '../support/db';
 import { baseUrl } from '../support/browser';
 import { auditLog, revisions, memberships } from '../../src/lib/server/db/schema';
 import { DEMO, call, demoTeamId, makeAssembly, makeJob, makeRevision, makeTeam, makeUser } from './teamFixtures';
@@ -37,7 +37,10 @@ async function healthDuring<T>(work: Promise<T>): Promise<{ result: T; health: {
   }
 }
 
-const issue = (revisionId: number, userId: string) => () => call('POST', `/api/revisions/${revisionId}/transitions`, { userId, body: { to: 'issued', note: '' } });
+/** sessions made before the burst, so that the requests leave together */
+const cookies = (userId: string, n: number) => Promise.all(Array.from({ length: n }, async () => `${SESSION_COOKIE}=${await sessionFor(userId)}`));
+
+const issue = (revisionId: number, cookie: string) => () => call('POST', `/api/revisions/${revisionId}/transitions`, { cookie, body: { to: 'issued', note: '' } });
 
 describe('issuing revisions at the same moment', () => {
   it('answers 10 different revisions issued at once within seconds, each issued once, with one audit row each', async () => {
@@ -45,7 +48,8 @@ describe('issuing revisions at the same moment', () => {
     const ids: number[] = [];
     for (let i = 0; i < 10; i++) ids.push(await makeRevision(await makeAssembly(jobId), 'checked'));
 
-    const { result, health } = await healthDuring(Promise.all(ids.map((id) => timed(issue(id, DEMO.engineer)).catch((e: Error) => ({ status: 0, ms: 10_000, error: e.message })))));
+    const sessions = await cookies(DEMO.engineer, ids.length);
+    const { result, health } = await healthDuring(Promise.all(ids.map((id, i) => timed(issue(id, sessions[i])).catch((e: Error) => ({ status: 0, ms: 10_000, error: e.message })))));
     expect(result.map((r) => r.status)).toEqual(ids.map(() => 201));
     expect(Math.max(...result.map((r) => r.ms))).toBeLessThan(10_000);
     expect(health.length).toBeGreaterThan(0);
@@ -62,9 +66,8 @@ describe('issuing revisions at the same moment', () => {
   it('answers 20 requests to issue one revision within seconds: exactly one succeeds, the others are told it is issued already', async () => {
     const jobId = await makeJob(await demoTeamId());
     const id = await makeRevision(await makeAssembly(jobId), 'checked');
-    const { result, health } = await healthDuring(
-      Promise.all(Array.from({ length: 20 }, () => timed(issue(id, DEMO.engineer)).catch(() => ({ status: 0, ms: 10_000 })))),
-    );
+    const sessions = await cookies(DEMO.engineer, 20);
+    const { result, health } = await healthDuring(Promise.all(sessions.map((cookie) => timed(issue(id, cookie)).catch(() => ({ status: 0, ms: 10_000 })))));
     const statuses = result.map((r) => r.status).sort();
     expect(statuses.filter((s) => s === 201)).toHaveLength(1);
     expect(statuses.filter((s) => s === 409)).toHaveLength(19);
@@ -77,10 +80,11 @@ describe('issuing revisions at the same moment', () => {
     const teamId = await makeTeam();
     const admin = await makeUser({ teamId, role: 'admin' });
     const others = await Promise.all(Array.from({ length: 12 }, () => makeUser({ teamId, role: 'engineer' })));
+    const sessions = await cookies(admin.id, others.length);
     const { result, health } = await healthDuring(
       Promise.all(
         others.map((o, i) =>
-          timed(() => call('PATCH', `/api/teams/${teamId}/members/${o.id}`, { userId: admin.id, body: { role: i % 2 ? 'checker' : 'admin' } })).catch(() => ({ status: 0, ms: 10_000 })),
+          timed(() => call('PATCH', `/api/teams/${teamId}/members/${o.id}`, { cookie: sessions[i], body: { role: i % 2 ? 'checker' : 'admin' } })).catch(() => ({ status: 0, ms: 10_000 })),
         ),
       ),
     );
