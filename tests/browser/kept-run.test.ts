@@ -26,7 +26,7 @@ describe('a kept run', () => {
     await page.waitForTimeout(1500);
     await expect(pane.getByTestId('run-origin').textContent()).resolves.toMatch(/^Kept run of revision/);
     await expect(pane.getByTestId('run-progress').count()).resolves.toBe(0);
-    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run again 7 days');
+    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run again 3 days');
     await expect(pane.getByTestId('stale-banner').count()).resolves.toBe(0);
     await pane.getByTestId('profile-canvas').waitFor();
     await screenshot(page, 'kept-run-checker');
@@ -52,8 +52,9 @@ describe('a kept run', () => {
     await exposure.getByLabel('Daily mean').fill('27');
     await pane.getByTestId('run-comparison').waitFor({ timeout: 30_000 });
     await expect(pane.getByTestId('run-state').textContent()).resolves.toMatch(/^Unsaved run/);
-    const row = pane.getByTestId('run-comparison').locator('[data-compare="peakHeatLossWm2"]');
-    await expect(row.locator('td').nth(0).textContent()).resolves.toBe(formatFigure('peakHeatLossWm2', record.summary.peakHeatLossWm2));
+    // a warmer day brings more heat into the room: the peak heat gain rises against the kept run's
+    const row = pane.getByTestId('run-comparison').locator('[data-compare="peakHeatGainWm2"]');
+    await expect(row.locator('td').nth(0).textContent()).resolves.toBe(formatFigure('peakHeatGainWm2', record.summary.peakHeatGainWm2));
     await expect(row.locator('td').nth(2).textContent()).resolves.toMatch(/^\+\d/);
     await expect(pane.getByTestId('run-results').getAttribute('data-stale')).resolves.toBe('false');
 

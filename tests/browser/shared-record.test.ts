@@ -34,7 +34,7 @@ describe('the Shared view', () => {
     // the engine's housekeeping stays with the team
     await expect(table.locator('[data-figure="mesh"]').count()).resolves.toBe(0);
     for (const id of ['chart-surface', 'chart-flux', 'chart-profile']) await expect(page.getByTestId(id).count()).resolves.toBe(1);
-    await expect(page.getByTestId('shared-verdicts').textContent()).resolves.toMatch(/Dew point/);
+    await expect(page.getByTestId('shared-verdicts').textContent()).resolves.toMatch(/Periodic state: reached/);
     const text = await page.locator('body').innerText();
     expect(text).not.toMatch(/Add a layer/);
     await screenshot(page, 'shared-view-no-js');

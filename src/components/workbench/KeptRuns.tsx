@@ -68,7 +68,7 @@ export async function keepRun(revisionId: number, run: RunDone, exposure: Exposu
   }
 }
 
-const LISTED = ['decrementFactorSimulated', 'timeLagSimulatedH', 'peakInsideFluxWm2', 'insideSurfaceMinC'];
+const LISTED = ['decrementFactorSimulated', 'timeLagSimulatedH', 'peakHeatGainWm2', 'peakHeatLossWm2', 'insideSurfaceMinC'];
 
 /** the list of kept runs, folded */
 export function KeptRunsList({ rows, revision }: { rows: KeptRunRow[]; revision: number | undefined }) {
@@ -109,7 +109,7 @@ export function KeptRunsList({ rows, revision }: { rows: KeptRunRow[]; revision:
   );
 }
 
-const COMPARED = ['decrementFactorSimulated', 'timeLagSimulatedH', 'peakInsideFluxWm2', 'heatGainedWhm2', 'heatLostWhm2', 'insideSurfaceMinC', 'insideSurfaceMaxC', 'lowestInterfaceC'];
+const COMPARED = ['decrementFactorSimulated', 'timeLagSimulatedH', 'peakHeatGainWm2', 'peakHeatLossWm2', 'heatGainedWhm2', 'heatLostWhm2', 'insideSurfaceMinC', 'insideSurfaceMaxC', 'lowestInterfaceC'];
 
 /** the new run's figures beside the kept run's, with the difference */
 export function Comparison({ kept, fresh, keptLabel }: { kept: RunDone; fresh: RunDone; keptLabel: string }) {
