@@ -10,6 +10,8 @@ import { hashToken } from '../../src/lib/server/tokens';
 import { DEMO, call } from '../system/teamFixtures';
 import { issuedRecord, type IssuedRecord } from '../system/recordFixtures';
 import { formatFigure } from '../../src/lib/workbench/figureDefs';
+import { moistureReport, MOISTURE_DEFERRAL } from '../../src/lib/moisture/index';
+import { twoLayerDocument } from '../system/recordFixtures';
 
 const browser = useBrowser();
 let record: IssuedRecord;
@@ -30,11 +32,20 @@ describe('the Shared view', () => {
     // the same figures the engineer kept, to the decimals the figure definitions give them
     await expect(table.locator('[data-figure="decrementFactor"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('decrementFactorSimulated', record.summary.decrementFactorSimulated));
     await expect(table.locator('[data-figure="timeLag"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('timeLagSimulatedH', record.summary.timeLagSimulatedH));
-    await expect(table.locator('[data-figure="peakInsideFlux"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakInsideFluxWm2', record.summary.peakInsideFluxWm2));
+    await expect(table.locator('[data-figure="peakHeatLoss"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakHeatLossWm2', record.summary.peakHeatLossWm2));
     // the engine's housekeeping stays with the team
     await expect(table.locator('[data-figure="mesh"]').count()).resolves.toBe(0);
     for (const id of ['chart-surface', 'chart-flux', 'chart-profile']) await expect(page.getByTestId(id).count()).resolves.toBe(1);
-    await expect(page.getByTestId('shared-verdicts').textContent()).resolves.toMatch(/Dew point/);
+    await expect(page.getByTestId('shared-verdicts').textContent()).resolves.toMatch(/Moisture \(ISO 13788\)/);
+    // the moisture check as the client reads it: the verdict in words, the Glaser diagrams of the
+    // key month and the method's cautions, but not the engineer's table of months
+    const m = moistureReport(twoLayerDocument())!;
+    const verdict = await page.getByTestId('moisture-verdict').innerText();
+    expect(verdict).toContain(`${m.verdict.label}.`);
+    expect(verdict).toContain(m.verdict.text);
+    await expect(page.locator('[data-testid="moisture-section"] svg[aria-label^="Glaser diagram"]').count()).resolves.toBe(2);
+    await expect(page.getByTestId('moisture-cautions').innerText()).resolves.toContain(MOISTURE_DEFERRAL);
+    await expect(page.getByTestId('moisture-months').count()).resolves.toBe(0);
     const text = await page.locator('body').innerText();
     expect(text).not.toMatch(/Add a layer/);
     await screenshot(page, 'shared-view-no-js');
