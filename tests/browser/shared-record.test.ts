@@ -60,7 +60,33 @@ describe('the Shared view', () => {
     expect(await opens(record.token)).toBe(before + 3);
   });
 
-  it('answers 410 Gone for a withdrawn link', async () => {
+  it('renders the page of an issued revision once and serves it from the cache, still counting every opening', async () => {
+    const fresh = await issuedRecord();
+    const before = await opens(fresh.token);
+    const first = await fetch(`${baseUrl()}/s/${fresh.token}`);
+    const firstHtml = await first.text();
+    expect(first.status).toBe(200);
+    expect(first.headers.get('x-cache')).toBe('miss');
+    const second = await fetch(`${baseUrl()}/s/${fresh.token}?record=0`);
+    expect(second.status).toBe(200);
+    expect(second.headers.get('x-cache')).toBe('hit');
+    await expect(second.text()).resolves.toBe(firstHtml);
+    // the cached answer keeps the page's own headers
+    expect(second.headers.get('cache-control')).toBe('no-store');
+    expect(second.headers.get('x-robots-tag')).toBe('noindex');
+    expect(second.headers.get('content-security-policy')).toBe(first.headers.get('content-security-policy'));
+    expect(await opens(fresh.token)).toBe(before + 2);
+    // a link that expires stops working at once, though its page is in the cache
+    await testDb().update(shareLinks).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(shareLinks.tokenHash, hashToken(fresh.token)));
+    const expired = await fetch(`${baseUrl()}/s/${fresh.token}`);
+    expect(expired.status).toBe(410);
+    expect(expired.headers.get('x-cache')).toBeNull();
+    await expect(expired.text()).resolves.toContain('This link has expired');
+    expect(await opens(fresh.token)).toBe(before + 2);
+  });
+
+  it('answers 410 Gone for a withdrawn link, at once though its page is in the cache', async () => {
+    expect((await fetch(`${baseUrl()}/s/${record.token}`)).headers.get('x-cache')).toBe('hit');
     const list = await (await call('GET', `/api/revisions/${record.revisionId}/shares`, { userId: DEMO.engineer })).json();
     expect((await call('POST', `/api/shares/${list.items[0].id}/revoke`, { userId: DEMO.engineer })).status).toBe(200);
     const res = await fetch(`${baseUrl()}/s/${record.token}`);

@@ -59,7 +59,9 @@ describe('the Report', () => {
     expect(section).toContain(`${m.verdict.label}.`);
     expect(section).toContain('Facing brick / Mineral wool');
     expect(section).toContain(m.verdict.surface.split(':')[0]);
-    for (const title of [`Glaser diagram, ${m.monthName}, against the thickness`, `Glaser diagram, ${m.monthName}, against s_d`]) expect(section).toContain(title);
+    expect(section).toContain(`Glaser diagram, ${m.monthName}, against the thickness: the section to scale`);
+    expect(section).toContain(`Glaser diagram, ${m.monthName}, against s<sub>d</sub> = μ·d`);
+    for (const label of [`Glaser diagram, ${m.monthName}, against the thickness`, `Glaser diagram, ${m.monthName}, against s_d`]) expect(section).toContain(`aria-label="${label}"`);
     expect((section.match(/<svg[^>]*aria-label="Glaser diagram/g) ?? []).length).toBe(2);
     const table = section.slice(section.indexOf('data-testid="moisture-months"'), section.indexOf('</table>'));
     for (const month of ['January', 'June', 'December']) expect(table).toContain(`>${month}<`);
