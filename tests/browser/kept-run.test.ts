@@ -21,12 +21,12 @@ describe('a kept run', () => {
     await expect(pane.getByTestId('run-origin').textContent()).resolves.toMatch(new RegExp(`^Kept run of revision ${record.revisionNumber}, .+ by Tomas Reyes$`));
     const decrement = pane.locator('[data-figure="decrementFactor"] [data-cell="simulated"]');
     await expect(decrement.textContent()).resolves.toBe(formatFigure('decrementFactorSimulated', record.summary.decrementFactorSimulated));
-    await expect(pane.locator('[data-figure="peakInsideFlux"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakInsideFluxWm2', record.summary.peakInsideFluxWm2));
+    await expect(pane.locator('[data-figure="peakHeatLoss"] [data-cell="simulated"]').textContent()).resolves.toBe(formatFigure('peakHeatLossWm2', record.summary.peakHeatLossWm2));
     // the kept run stays: nothing ran by itself in the checker's browser
     await page.waitForTimeout(1500);
     await expect(pane.getByTestId('run-origin').textContent()).resolves.toMatch(/^Kept run of revision/);
     await expect(pane.getByTestId('run-progress').count()).resolves.toBe(0);
-    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run again 7 days');
+    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run again 3 days'); // a repeating day starts in its periodic state: the 3 reported days, no warm-up
     await expect(pane.getByTestId('stale-banner').count()).resolves.toBe(0);
     await pane.getByTestId('profile-canvas').waitFor();
     await screenshot(page, 'kept-run-checker');
