@@ -6,6 +6,9 @@ import { errorId, isDatabaseUnavailable, shortReason } from './lib/server/failur
 import { problemPage } from './lib/server/problemPage';
 import { startMailWorker } from './lib/server/mail';
 import { BASE_HEADERS } from './stack/headers.mjs';
+import { checkShare } from './lib/server/services/shares';
+import { cachedSharedPage, keepSharedPage, sharedPageKey } from './lib/server/services/sharedPage';
+import { clientIp } from './lib/server/services/respond';
 
 // the outbound mail queue is sent from this process (mail.ts); the middleware is loaded with the app
 startMailWorker();
@@ -143,4 +146,35 @@ const session = defineMiddleware(async (context, next) => {
   return next();
 });
 
-export const onRequest = sequence(guard, session);
+const SHARED_PATH = /^\/s\/([^/]+)\/?$/;
+
+/**
+ * The Shared view of a guest (no one signed in, so the page is the same for every guest): the link
+ * is checked, counted and audited on every opening, then the page of the revision and its newest
+ * kept run comes from the cache, or is rendered once and kept. A signed-in person's page carries
+ * their own header and is rendered each time (the page counts the opening itself).
+ */
+const sharedPage = defineMiddleware(async (context, next) => {
+  const m = context.request.method === 'GET' && !context.locals.user ? SHARED_PATH.exec(context.url.pathname) : null;
+  if (!m) return next();
+  let token: string;
+  try {
+    token = decodeURIComponent(m[1]);
+  } catch {
+    return next();
+  }
+  const result = await checkShare(token, clientIp(context));
+  context.locals.shareCheck = { token, result };
+  if (!result.ok) return next();
+  const key = sharedPageKey(result.revisionId, result.newestRunId);
+  const hit = cachedSharedPage(key);
+  if (hit) return new Response(hit.html, { status: 200, headers: [...hit.headers, ['x-cache', 'hit']] });
+  const response = await next();
+  if (response.status !== 200 || !(response.headers.get('content-type') ?? '').includes('text/html')) return response;
+  const html = await response.text();
+  const headers = [...response.headers].filter(([name]) => name !== 'set-cookie' && name !== 'content-length' && name !== 'x-cache');
+  keepSharedPage(key, { html, headers });
+  return new Response(html, { status: 200, headers: [...headers, ['x-cache', 'miss']] });
+});
+
+export const onRequest = sequence(guard, session, sharedPage);

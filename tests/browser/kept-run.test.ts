@@ -26,7 +26,7 @@ describe('a kept run', () => {
     await page.waitForTimeout(1500);
     await expect(pane.getByTestId('run-origin').textContent()).resolves.toMatch(/^Kept run of revision/);
     await expect(pane.getByTestId('run-progress').count()).resolves.toBe(0);
-    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run again 3 days');
+    await expect(pane.getByTestId('run').textContent()).resolves.toBe('Run again 3 days'); // a repeating day starts in its periodic state: the 3 reported days, no warm-up
     await expect(pane.getByTestId('stale-banner').count()).resolves.toBe(0);
     await pane.getByTestId('profile-canvas').waitFor();
     await screenshot(page, 'kept-run-checker');

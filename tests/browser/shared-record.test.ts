@@ -10,6 +10,8 @@ import { hashToken } from '../../src/lib/server/tokens';
 import { DEMO, call } from '../system/teamFixtures';
 import { issuedRecord, type IssuedRecord } from '../system/recordFixtures';
 import { formatFigure } from '../../src/lib/workbench/figureDefs';
+import { moistureReport, MOISTURE_DEFERRAL } from '../../src/lib/moisture/index';
+import { twoLayerDocument } from '../system/recordFixtures';
 
 const browser = useBrowser();
 let record: IssuedRecord;
@@ -34,7 +36,16 @@ describe('the Shared view', () => {
     // the engine's housekeeping stays with the team
     await expect(table.locator('[data-figure="mesh"]').count()).resolves.toBe(0);
     for (const id of ['chart-surface', 'chart-flux', 'chart-profile']) await expect(page.getByTestId(id).count()).resolves.toBe(1);
-    await expect(page.getByTestId('shared-verdicts').textContent()).resolves.toMatch(/Periodic state: reached/);
+    await expect(page.getByTestId('shared-verdicts').textContent()).resolves.toMatch(/Moisture \(ISO 13788\)/);
+    // the moisture check as the client reads it: the verdict in words, the Glaser diagrams of the
+    // key month and the method's cautions, but not the engineer's table of months
+    const m = moistureReport(twoLayerDocument())!;
+    const verdict = await page.getByTestId('moisture-verdict').innerText();
+    expect(verdict).toContain(`${m.verdict.label}.`);
+    expect(verdict).toContain(m.verdict.text);
+    await expect(page.locator('[data-testid="moisture-section"] svg[aria-label^="Glaser diagram"]').count()).resolves.toBe(2);
+    await expect(page.getByTestId('moisture-cautions').innerText()).resolves.toContain(MOISTURE_DEFERRAL);
+    await expect(page.getByTestId('moisture-months').count()).resolves.toBe(0);
     const text = await page.locator('body').innerText();
     expect(text).not.toMatch(/Add a layer/);
     await screenshot(page, 'shared-view-no-js');
@@ -49,7 +60,33 @@ describe('the Shared view', () => {
     expect(await opens(record.token)).toBe(before + 3);
   });
 
-  it('answers 410 Gone for a withdrawn link', async () => {
+  it('renders the page of an issued revision once and serves it from the cache, still counting every opening', async () => {
+    const fresh = await issuedRecord();
+    const before = await opens(fresh.token);
+    const first = await fetch(`${baseUrl()}/s/${fresh.token}`);
+    const firstHtml = await first.text();
+    expect(first.status).toBe(200);
+    expect(first.headers.get('x-cache')).toBe('miss');
+    const second = await fetch(`${baseUrl()}/s/${fresh.token}?record=0`);
+    expect(second.status).toBe(200);
+    expect(second.headers.get('x-cache')).toBe('hit');
+    await expect(second.text()).resolves.toBe(firstHtml);
+    // the cached answer keeps the page's own headers
+    expect(second.headers.get('cache-control')).toBe('no-store');
+    expect(second.headers.get('x-robots-tag')).toBe('noindex');
+    expect(second.headers.get('content-security-policy')).toBe(first.headers.get('content-security-policy'));
+    expect(await opens(fresh.token)).toBe(before + 2);
+    // a link that expires stops working at once, though its page is in the cache
+    await testDb().update(shareLinks).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(shareLinks.tokenHash, hashToken(fresh.token)));
+    const expired = await fetch(`${baseUrl()}/s/${fresh.token}`);
+    expect(expired.status).toBe(410);
+    expect(expired.headers.get('x-cache')).toBeNull();
+    await expect(expired.text()).resolves.toContain('This link has expired');
+    expect(await opens(fresh.token)).toBe(before + 2);
+  });
+
+  it('answers 410 Gone for a withdrawn link, at once though its page is in the cache', async () => {
+    expect((await fetch(`${baseUrl()}/s/${record.token}`)).headers.get('x-cache')).toBe('hit');
     const list = await (await call('GET', `/api/revisions/${record.revisionId}/shares`, { userId: DEMO.engineer })).json();
     expect((await call('POST', `/api/shares/${list.items[0].id}/revoke`, { userId: DEMO.engineer })).status).toBe(200);
     const res = await fetch(`${baseUrl()}/s/${record.token}`);

@@ -5,9 +5,10 @@ import { packRun, toBase64 } from '../../src/lib/workbench/keptRun';
 import { runDocument, type RunDone } from '../../src/lib/workbench/runDocument';
 import { summaryOf } from '../../src/lib/workbench/figures';
 import { defaultExposure, type WorkbenchDocument } from '../../src/lib/schemas/workbench';
+import { demoClimate } from '../../src/lib/moisture/index';
 import { DEMO, call, demoTeamId, uid } from './teamFixtures';
 
-/** brick outside mineral wool, typical values (from memory) */
+/** brick outside mineral wool, typical values (from memory), under the Harrow Lane demo climate for the moisture check */
 export function twoLayerDocument(): WorkbenchDocument {
   return {
     version: 2,
@@ -16,7 +17,7 @@ export function twoLayerDocument(): WorkbenchDocument {
       { id: 'wool', name: 'Mineral wool', materialRef: null, materialClass: 'insulation', thickness: 0.1, conductivity: 0.035, density: 30, specificHeat: 1030, vapourResistanceFactor: 1, source: 'typical value (from memory)', note: '' },
       { id: 'block', name: 'Dense block', materialRef: null, materialClass: 'concrete', thickness: 0.1, conductivity: 1.13, density: 2000, specificHeat: 1000, vapourResistanceFactor: 15, source: 'typical value (from memory)', note: '' },
     ],
-    exposure: { ...defaultExposure(), indoorRelativeHumidity: 60 },
+    exposure: { ...defaultExposure(), indoorRelativeHumidity: 60, climate: demoClimate('harrow-lane') },
   };
 }
 

@@ -7,7 +7,8 @@ import { PDFParse } from 'pdf-parse';
 import { ARTIFACTS, baseUrl } from '../support/browser';
 import { closeTestDb } from '../support/db';
 import { DEMO, call, demoTeamId, makeUser, uid } from './teamFixtures';
-import { issuedRecord, type IssuedRecord } from './recordFixtures';
+import { issuedRecord, twoLayerDocument, type IssuedRecord } from './recordFixtures';
+import { moistureReport, MOISTURE_DEFERRAL } from '../../src/lib/moisture/index';
 import { figureRows } from '../../src/lib/workbench/figureRows';
 import { defaultExposure, type WorkbenchDocument } from '../../src/lib/schemas/workbench';
 
@@ -42,7 +43,31 @@ describe('the Report', () => {
     expect((html.match(/<svg[^>]*data-testid="chart-/g) ?? []).length).toBe(3);
     // the exposure names what applies: a sine day has no sun and no absorptance
     expect(html).not.toMatch(/absorptance/);
-    expect(html).toMatch(/Periodic state: reached/);
+    expect(html).toMatch(/Periodic state: started in it, and held/);
+  });
+
+  it('carries the moisture check: verdict in words, surface check, the table of months, both Glaser diagrams of the key month, the climate and the cautions', async () => {
+    const res = await call('GET', `/assemblies/${record.assemblyId}/report`, { userId: DEMO.checker });
+    const html = await res.text();
+    const m = fixtureMoisture();
+    // brick, wool and block under the Harrow Lane demo climate: vapour condenses at the back of the
+    // brick in winter and dries out by spring (the engineer's reading of a cavity wall without a
+    // vapour control layer, common practice)
+    expect(m.verdict.kind).toBe('driesOut');
+    const section = html.slice(html.indexOf('data-testid="moisture-section"'));
+    expect(section.length).toBeLessThan(html.length);
+    expect(section).toContain(`${m.verdict.label}.`);
+    expect(section).toContain('Facing brick / Mineral wool');
+    expect(section).toContain(m.verdict.surface.split(':')[0]);
+    expect(section).toContain(`Glaser diagram, ${m.monthName}, against the thickness: the section to scale`);
+    expect(section).toContain(`Glaser diagram, ${m.monthName}, against s<sub>d</sub> = μ·d`);
+    for (const label of [`Glaser diagram, ${m.monthName}, against the thickness`, `Glaser diagram, ${m.monthName}, against s_d`]) expect(section).toContain(`aria-label="${label}"`);
+    expect((section.match(/<svg[^>]*aria-label="Glaser diagram/g) ?? []).length).toBe(2);
+    const table = section.slice(section.indexOf('data-testid="moisture-months"'), section.indexOf('</table>'));
+    for (const month of ['January', 'June', 'December']) expect(table).toContain(`>${month}<`);
+    expect(section).toContain('Class 3: dwellings of unknown occupancy');
+    expect(section).toContain(MOISTURE_DEFERRAL);
+    expect(section).toContain('No air leakage');
   });
 
   it('downloads as a PDF printed by the server holding the check trail, the chart titles and every figure with its unit and source', async () => {
@@ -67,6 +92,12 @@ describe('the Report', () => {
       expect(text, r.label).toContain(flat(`${r.label}${r.unit && r.unit !== '–' ? ` (${r.unit})` : ''}: ${r.how}`));
     }
     expect(text).toContain('Design aid, not a design.');
+    // the moisture check prints with the rest: its verdict, the diagram's title and the deferral
+    const m = fixtureMoisture();
+    expect(text).toContain(`${m.verdict.label}.`);
+    expect(text).toContain(flat(m.verdict.text));
+    expect(text).toContain(`Glaser diagram, ${m.monthName}, against the thickness`);
+    expect(text).toContain(MOISTURE_DEFERRAL);
     // an issued revision is printed once: the second download comes from the cache
     const t1 = performance.now();
     const again = await call('GET', `/assemblies/${record.assemblyId}/report.pdf`, { userId: DEMO.engineer });
@@ -128,5 +159,12 @@ describe('the Report', () => {
 });
 
 function twoLayerExposure() {
-  return { ...defaultExposure(), indoorRelativeHumidity: 60 };
+  return twoLayerDocument().exposure;
+}
+
+/** the moisture check of the fixture's wall as the moisture module gives it (its physics is tested in tests/unit/moisture) */
+function fixtureMoisture() {
+  const m = moistureReport(twoLayerDocument());
+  if (!m) throw new Error('the fixture document has no moisture check');
+  return m;
 }

@@ -10,6 +10,7 @@ import SunOnFace from './SunOnFace';
 import type { UploadSummary } from '../../lib/schemas/upload';
 import CsvImport from './CsvImport';
 import { MAX_RUN_DAYS, daysRule, parseNumber, warmupRule, type NumberRule } from './numberRule';
+import { AUTO_RUN_DAYS } from './RunControl';
 
 /** the pane is read-only (a checker's view): fields show their values and cannot change */
 const ReadOnly = createContext(false);
@@ -432,7 +433,14 @@ export default function ExposurePane({ readOnly = false }: { readOnly?: boolean 
         </label>
         {num('maxCellSize', { label: 'Largest cell', unit: 'mm', min: 0.5, max: 100, scale: 1000 }, 'The mesh puts at least 4 cells in each layer and no cell thicker than this')}
         <p className="w-full text-xs text-ink-faint">
-          {totalDays} days in all; {readOnly ? (totalDays <= 7 ? 'run once on opening; press Run to run them again.' : 'press Run to run them in your browser.') : totalDays <= 7 ? 'runs by itself after each edit.' : 'longer than 7 days: press Run after an edit.'}
+          {totalDays} days in all; opening a revision shows the run kept with it, if any.{' '}
+          {readOnly
+            ? totalDays <= AUTO_RUN_DAYS
+              ? 'Without one they run once in your browser; press Run to run them again.'
+              : `Without one, press Run to run them in your browser (more than ${AUTO_RUN_DAYS} days never run by themselves).`
+            : totalDays <= AUTO_RUN_DAYS
+              ? 'Without one, and after each edit, they run by themselves.'
+              : `Longer than ${AUTO_RUN_DAYS} days: press Run after an edit.`}
         </p>
       </Group>
     </section>

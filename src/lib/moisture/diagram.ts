@@ -84,10 +84,11 @@ export function glaserDiagramSvg(a: MoistureAssessment, month: number, options: 
   parts.push(`<text x="${left - 4}" y="${top - 10}" text-anchor="end" fill="${DIAGRAM_COLOURS.soft}">Pa</text>`);
   parts.push(`<text x="${left + plotW + 4}" y="${top - 10}" fill="${DIAGRAM_COLOURS.temperature}">°C</text>`);
   parts.push(`<rect x="${left}" y="${top}" width="${plotW}" height="${plotH}" fill="none" stroke="${DIAGRAM_COLOURS.soft}" stroke-width="0.8"/>`);
-  const axisLabel = axis === 'sd' ? `s_d from the outside surface, m (total ${total >= 100 ? total.toFixed(0) : total.toFixed(2)} m)` : `thickness from the outside surface, mm (total ${(total * 1000).toFixed(0)} mm)`;
+  // s_d is written with a true subscript (no program-like token on screen); nothing here comes from the user
+  const axisLabel = axis === 'sd' ? `s<tspan baseline-shift="sub" font-size="8">d</tspan> from the outside surface, m (total ${total >= 100 ? total.toFixed(0) : total.toFixed(2)} m)` : esc(`thickness from the outside surface, mm (total ${(total * 1000).toFixed(0)} mm)`);
   parts.push(`<text x="${left}" y="${height - 8}" fill="${DIAGRAM_COLOURS.soft}">outside</text>`);
   parts.push(`<text x="${left + plotW}" y="${height - 8}" text-anchor="end" fill="${DIAGRAM_COLOURS.soft}">inside</text>`);
-  parts.push(`<text x="${left + plotW / 2}" y="${height - 8}" text-anchor="middle" fill="${DIAGRAM_COLOURS.soft}">${esc(axisLabel)}</text>`);
+  parts.push(`<text x="${left + plotW / 2}" y="${height - 8}" text-anchor="middle" fill="${DIAGRAM_COLOURS.soft}">${axisLabel}</text>`);
 
   // saturation: sampled inside each layer (the temperature is linear in both x and s_d within a layer)
   const sat: string[] = [];

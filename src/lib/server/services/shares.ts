@@ -3,7 +3,7 @@
 import { and, count, eq, like, or, sql } from 'drizzle-orm';
 import { PUBLIC_BASE_URL } from 'astro:env/server';
 import { db } from '../db';
-import { assemblies, jobs, revisions, shareLinks, users } from '../db/schema';
+import { assemblies, jobs, revisions, runs, shareLinks, users } from '../db/schema';
 import { audit } from '../audit';
 import { hashToken, tokenPair, DAY_MS } from '../tokens';
 import type { ListQuery } from '../../schemas/api';
@@ -125,26 +125,34 @@ export interface SharedRevision {
   runs: { createdAt: Date; exposure: unknown; summary: unknown }[];
 }
 
+/** a share link that works, as checked (and counted) for one opening */
+export interface ShareCheck {
+  ok: true;
+  linkId: number;
+  revisionId: number;
+  teamId: number;
+  /** the newest run kept with the revision (any kind), null without one: a new run changes the page */
+  newestRunId: number | null;
+}
+
+const NOT_FOUND = 'This link does not lead to anything. Check that the whole link was copied.';
+
 /**
- * Open a share link as a guest: records the opening (count, time, audit row).
- * Unknown → 404; revoked or expired → 410 with a message for the guest.
+ * Check a share link and count the opening: one indexed read of the link (with its revision's
+ * team and newest kept run), then the count and the audit row, written side by side. Unknown →
+ * 404; revoked or expired → 410 with a message for the guest. Runs on every opening, also when
+ * the page itself comes from the cache, so a withdrawn or expired link stops working at once.
  */
-export async function openShare(token: string, ip = ''): Promise<{ ok: true; shared: SharedRevision; revisionId: number; newestRunId: number | null } | Fail> {
-  if (!token || token.length < 20 || token.length > 100) return fail(404, 'share_not_found', 'This link does not lead to anything. Check that the whole link was copied.');
+export async function checkShare(token: string, ip = ''): Promise<ShareCheck | Fail> {
+  if (!token || token.length < 20 || token.length > 100) return fail(404, 'share_not_found', NOT_FOUND);
   const rows = await db
     .select({
       id: shareLinks.id,
       revokedAt: shareLinks.revokedAt,
       expiresAt: shareLinks.expiresAt,
-      revisionId: revisions.id,
-      number: revisions.number,
-      state: revisions.state,
-      createdAt: revisions.createdAt,
-      model: revisions.model,
-      assemblyName: assemblies.name,
-      element: assemblies.element,
-      jobName: jobs.name,
+      revisionId: shareLinks.revisionId,
       teamId: jobs.teamId,
+      newestRunId: sql<number | null>`(select max(${runs.id}) from ${runs} where ${runs.revisionId} = ${shareLinks.revisionId})`,
     })
     .from(shareLinks)
     .innerJoin(revisions, eq(revisions.id, shareLinks.revisionId))
@@ -153,16 +161,41 @@ export async function openShare(token: string, ip = ''): Promise<{ ok: true; sha
     .where(eq(shareLinks.tokenHash, hashToken(token)))
     .limit(1);
   const row = rows[0];
-  if (!row) return fail(404, 'share_not_found', 'This link does not lead to anything. Check that the whole link was copied.');
+  if (!row) return fail(404, 'share_not_found', NOT_FOUND);
   if (row.revokedAt) return fail(410, 'share_revoked', 'This link was withdrawn by the team that shared it. Ask them for a new one if you still need it.');
   if (row.expiresAt && row.expiresAt.getTime() <= Date.now()) return fail(410, 'share_expired', 'This link has expired. Ask the team that shared it for a new one.');
   // every opening is counted and audited, whoever asks and however
-  await db
-    .update(shareLinks)
-    .set({ lastOpenedAt: new Date(), openCount: sql`${shareLinks.openCount} + 1` })
-    .where(eq(shareLinks.id, row.id));
-  await audit({ action: 'share_opened', teamId: row.teamId, target: `share:${row.id}`, ip });
-  const kept = await runsOf(row.revisionId);
+  await Promise.all([
+    db
+      .update(shareLinks)
+      .set({ lastOpenedAt: new Date(), openCount: sql`${shareLinks.openCount} + 1` })
+      .where(eq(shareLinks.id, row.id)),
+    audit({ action: 'share_opened', teamId: row.teamId, target: `share:${row.id}`, ip }),
+  ]);
+  const newest = row.newestRunId === null ? null : Number(row.newestRunId);
+  return { ok: true, linkId: row.id, revisionId: row.revisionId, teamId: row.teamId, newestRunId: Number.isFinite(newest) ? newest : null };
+}
+
+/** what a checked link shows: the revision, its assembly and job, and its kept runs */
+export async function sharedOf(check: ShareCheck): Promise<{ ok: true; shared: SharedRevision; revisionId: number; newestRunId: number | null } | Fail> {
+  const rows = await db
+    .select({
+      number: revisions.number,
+      state: revisions.state,
+      createdAt: revisions.createdAt,
+      model: revisions.model,
+      assemblyName: assemblies.name,
+      element: assemblies.element,
+      jobName: jobs.name,
+    })
+    .from(revisions)
+    .innerJoin(assemblies, eq(assemblies.id, revisions.assemblyId))
+    .innerJoin(jobs, eq(jobs.id, assemblies.jobId))
+    .where(eq(revisions.id, check.revisionId))
+    .limit(1);
+  const row = rows[0];
+  if (!row) return fail(404, 'share_not_found', NOT_FOUND);
+  const kept = await runsOf(check.revisionId);
   const runs = kept.map((r) => ({ createdAt: r.createdAt, exposure: r.exposure, summary: r.summary }));
   return {
     ok: true,
@@ -173,7 +206,17 @@ export async function openShare(token: string, ip = ''): Promise<{ ok: true; sha
       runs,
     },
     // for the server's own use (the cached view), never sent to the guest
-    revisionId: row.revisionId,
+    revisionId: check.revisionId,
     newestRunId: kept.find((r) => r.hasSeries)?.id ?? null,
   };
+}
+
+/**
+ * Open a share link as a guest: records the opening (count, time, audit row) and reads what it shows.
+ * Unknown → 404; revoked or expired → 410 with a message for the guest.
+ */
+export async function openShare(token: string, ip = ''): Promise<{ ok: true; shared: SharedRevision; revisionId: number; newestRunId: number | null } | Fail> {
+  const check = await checkShare(token, ip);
+  if (!check.ok) return check;
+  return sharedOf(check);
 }
