@@ -45,7 +45,10 @@ export default function JobsScreen({ teamId, canEdit }: { teamId: number; canEdi
         </CreateForm>
       ) : null}
       {canEdit ? (
-        <RestoreForm teamId={teamId} />
+        // a block of its own: beside the New job button it would read as one word
+        <div>
+          <RestoreForm teamId={teamId} />
+        </div>
       ) : (
         <p className="text-sm text-ink-soft">Your role may read and check the team’s jobs; engineers and admins create them.</p>
       )}
