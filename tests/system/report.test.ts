@@ -43,7 +43,7 @@ describe('the Report', () => {
     expect((html.match(/<svg[^>]*data-testid="chart-/g) ?? []).length).toBe(3);
     // the exposure names what applies: a sine day has no sun and no absorptance
     expect(html).not.toMatch(/absorptance/);
-    expect(html).toMatch(/Periodic state: started in it, and held/);
+    expect(html).toMatch(/Periodic state: reached/);
   });
 
   it('carries the moisture check: verdict in words, surface check, the table of months, both Glaser diagrams of the key month, the climate and the cautions', async () => {
