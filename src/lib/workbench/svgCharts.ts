@@ -4,6 +4,7 @@
 import type { RunDone } from './runDocument.ts';
 import type { MaterialClass } from '../schemas/workbench.ts';
 import { dayClock } from './figures.ts';
+import { MAT_HEX } from './materialFills.ts';
 
 const W = 720;
 const H = 260;
@@ -108,18 +109,6 @@ export function lineChart(opts: { title: string; x: ArrayLike<number>; xLabel: s
   return parts.join('');
 }
 
-const MATERIAL_FILL: Record<MaterialClass, string> = {
-  masonry: '#c98b6b',
-  concrete: '#a9a8a2',
-  timber: '#d9b77e',
-  insulation: '#f1de8a',
-  board: '#e6e0d3',
-  metal: '#8e9aa6',
-  membrane: '#5f6f7a',
-  air: '#eef4f6',
-  render: '#d8cfc0',
-};
-
 export interface RunCharts {
   /** the title of each chart, as the chart shows it */
   titles: { surface: string; flux: string; profile: string };
@@ -166,7 +155,7 @@ export function runCharts(run: RunDone, classes: MaterialClass[]): RunCharts {
   const bands = run.layerBounds.slice(0, -1).map((from, i) => ({
     from: from * 1000,
     to: run.layerBounds[i + 1] * 1000,
-    fill: MATERIAL_FILL[classes[i]] ?? '#eeeae2',
+    fill: MAT_HEX[classes[i]] ?? '#eeeae2',
     label: `layer ${i + 1}`,
   }));
   const profile = lineChart({

@@ -1,18 +1,6 @@
-// the material-class fills of the theme (global.css --color-mat-*) as colours, for the SVG strings
-// of the moisture diagram that are drawn without the page's CSS (report, shared view)
+// the lightened layer fills of the moisture diagram, from the theme's material colours
 import type { MaterialClass } from '../../../lib/schemas/workbench';
-
-export const MAT_HEX: Record<MaterialClass, string> = {
-  masonry: '#c98b6b',
-  concrete: '#a9a8a2',
-  timber: '#d9b77e',
-  insulation: '#f1de8a',
-  board: '#e6e0d3',
-  metal: '#8e9aa6',
-  membrane: '#5f6f7a',
-  air: '#eef4f6',
-  render: '#d8cfc0',
-};
+import { MAT_HEX } from '../../../lib/workbench/materialFills';
 
 /** a colour mixed with white: share 0 keeps it, 1 gives white */
 function lighten(hex: string, share: number): string {
